@@ -1,0 +1,7 @@
+#!/usr/bin/env node
+import { main } from '../dist/engine/cli/main.js';
+
+main(process.argv.slice(2)).then(
+  (code) => { process.exitCode = code; },
+  (err) => { process.stderr.write(`plumbline: ${err instanceof Error ? err.message : String(err)}\n`); process.exitCode = 2; },
+);
