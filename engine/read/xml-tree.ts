@@ -17,6 +17,20 @@ export interface AttributeSpan {
   value: Span;
 }
 
+/** Where an attribute sits in the source, or null when the element has no such attribute. */
+export function attributeSpan(doc: XmlDocument, element: XmlElement, name: string): AttributeSpan | null {
+  const o = doc.attrOffsets;
+  const src = doc.source;
+  for (let k = 0; k < element.attrCount; k++) {
+    const base = element.attrIndex + 4 * k;
+    if (o[base + 1]! - o[base]! === name.length && src.startsWith(name, o[base]!)) {
+      const valueEnd = o[base + 3]!;
+      return { whole: { start: o[base]!, end: valueEnd + 1 }, value: { start: o[base + 2]!, end: valueEnd } };
+    }
+  }
+  return null;
+}
+
 export interface XmlElement {
   type: 'element';
   /** Qualified name as written, minus an `svg:` prefix. */
@@ -27,12 +41,23 @@ export interface XmlElement {
   /** 1-based line and column of the `<` that opens the element. */
   line: number;
   column: number;
-  /** Span of the start tag `<name ...>` (or the whole self-closing tag). */
-  openTag: Span;
-  /** Span of the whole element, start tag to end of end tag. */
-  span: Span;
-  attributeSpans: Record<string, AttributeSpan>;
+  /** Offset of the `<` that opens the element. */
+  start: number;
+  /** Offset just after the `>` that ends the start tag. */
+  openEnd: number;
+  /** Offset just after the end tag (or the self-closing start tag). */
+  end: number;
+  /**
+   * Index into the document's `attrOffsets` where this element's attribute
+   * offsets begin (four per attribute, in source order: name start, name end,
+   * value start, value end). Read with `attributeSpan()`.
+   */
+  attrIndex: number;
+  /** Number of attributes written in the source. */
+  attrCount: number;
   selfClosing: boolean;
+  /** One attribute's value without building the whole record (undefined when absent). */
+  attribute(name: string): string | undefined;
 }
 
 export interface XmlText {
@@ -51,6 +76,12 @@ export interface XmlDocument {
   source: string;
   /** Comments are kept only as spans, for formatting-preserving redraw. */
   comments: Span[];
+  /**
+   * Attribute source offsets of all elements, flat: for each attribute its
+   * name start, name end, value start and value end. Elements index it by
+   * `attrIndex`.
+   */
+  attrOffsets: Int32Array;
 }
 
 /** A readable error with a position in the source. */
