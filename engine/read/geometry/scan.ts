@@ -1,0 +1,86 @@
+/**
+ * Low-level scanning of the number and separator syntax shared by SVG
+ * attribute micro-grammars (path data, transform lists, viewBox, points,
+ * lengths). Works on char codes; never allocates except for the final
+ * `Number()` conversion of a number token.
+ */
+
+/** SVG white space: space, tab, line feed, carriage return (plus form feed, as CSS allows). */
+export function isWsp(c: number): boolean {
+  return c === 32 || c === 9 || c === 10 || c === 13 || c === 12;
+}
+
+export function isDigit(c: number): boolean {
+  return c >= 48 && c <= 57;
+}
+
+/** True for a char that can begin a number token: digit, sign or decimal point. */
+export function isNumberStart(c: number): boolean {
+  return (c >= 48 && c <= 57) || c === 45 || c === 43 || c === 46;
+}
+
+/** Index of the first non-white-space char at or after `i`. */
+export function skipWsp(s: string, i: number): number {
+  const n = s.length;
+  while (i < n && isWsp(s.charCodeAt(i))) i++;
+  return i;
+}
+
+/**
+ * Skips `wsp* ,? wsp*` starting at `i`. Returns the new index; `sawComma`
+ * reports whether a comma was consumed (the caller then requires another value).
+ */
+export function skipCommaWsp(s: string, i: number): { index: number; sawComma: boolean } {
+  i = skipWsp(s, i);
+  if (s.charCodeAt(i) === 44) {
+    return { index: skipWsp(s, i + 1), sawComma: true };
+  }
+  return { index: i, sawComma: false };
+}
+
+/**
+ * End index of the number token starting at `i`, or -1 when none starts there.
+ *
+ * Grammar (SVG 1.1 path and basic-data-type number, also CSS <number>):
+ * `sign? (digits ('.' digits?)? | '.' digits) (('e'|'E') sign? digits)?`.
+ * An `e` that is not followed by digits is left unconsumed, so `1em` scans
+ * as the number `1` followed by the unit `em`, and `1.5.5` as `1.5` then `.5`.
+ */
+export function scanNumberEnd(s: string, i: number): number {
+  let j = i;
+  let c = s.charCodeAt(j);
+  if (c === 43 || c === 45) c = s.charCodeAt(++j);
+  let digits = 0;
+  while (c >= 48 && c <= 57) {
+    digits++;
+    c = s.charCodeAt(++j);
+  }
+  if (c === 46) {
+    c = s.charCodeAt(++j);
+    while (c >= 48 && c <= 57) {
+      digits++;
+      c = s.charCodeAt(++j);
+    }
+  }
+  if (digits === 0) return -1;
+  if (c === 101 || c === 69) {
+    let k = j + 1;
+    let e = s.charCodeAt(k);
+    if (e === 43 || e === 45) e = s.charCodeAt(++k);
+    if (e >= 48 && e <= 57) {
+      while (e >= 48 && e <= 57) e = s.charCodeAt(++k);
+      j = k;
+    }
+  }
+  return j;
+}
+
+/**
+ * Converts the token `s[start, end)` (already validated by scanNumberEnd).
+ * Single digits and short integers take a fast path; everything else goes
+ * through `Number()`, which rounds correctly.
+ */
+export function tokenValue(s: string, start: number, end: number): number {
+  if (end - start === 1) return s.charCodeAt(start) - 48;
+  return Number(s.slice(start, end));
+}
