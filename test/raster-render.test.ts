@@ -13,9 +13,11 @@ import { BUNDLED_FACES, bundledFontDir } from '../engine/raster/fonts.js';
 import {
   RasterInputError,
   intrinsicSize,
+  prepareSvg,
   renderPng,
   renderSvg,
   renderSvgAsync,
+  type PreparedSvg,
   type RgbaImage,
 } from '../engine/raster/render.js';
 
@@ -205,6 +207,14 @@ describe('renderSvg', () => {
     expect(() =>
       renderSvg('<!DOCTYPE svg [<!ENTITY a "b">]><svg xmlns="http://www.w3.org/2000/svg" width="4" height="4"/>'),
     ).toThrow(/entities/);
+  });
+
+  it('renders only prepared SVGs that prepareSvg made', async () => {
+    const forged = Object.freeze({ width: 10, height: 10 }) as PreparedSvg;
+    await expect(renderSvgAsync(forged)).rejects.toThrow(/prepareSvg/);
+    const real = prepareSvg('<svg xmlns="http://www.w3.org/2000/svg" width="12" height="8"/>');
+    expect(real).toEqual({ width: 12, height: 8 });
+    expect(await renderSvgAsync(real, { width: 24 })).toMatchObject({ width: 24, height: 16 });
   });
 });
 

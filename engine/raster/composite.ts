@@ -146,7 +146,8 @@ export function compositeRgba(before: RgbaImage, after: RgbaImage, diff: DiffLay
 export function encodePng(img: RgbaImage, keepAlpha = false): Buffer {
   const png = new PNG({ width: img.width, height: img.height });
   png.data = Buffer.from(img.rgba.buffer, img.rgba.byteOffset, img.rgba.byteLength);
-  return PNG.sync.write(png, { colorType: keepAlpha ? 6 : 2, inputHasAlpha: true, deflateLevel: 6 });
+  // A fixed "Up" filter: about half the time of per-row adaptive filtering, files ~10 % larger.
+  return PNG.sync.write(png, { colorType: keepAlpha ? 6 : 2, inputHasAlpha: true, deflateLevel: 6, filterType: 2 });
 }
 
 /** The three panels as PNG bytes. */

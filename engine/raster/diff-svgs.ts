@@ -6,7 +6,7 @@ import { createHash } from 'node:crypto';
 import { compositePng, type CompositeOptions } from './composite.js';
 import { diffImages, type DiffRegion, type PixelDiffOptions } from './diff-pixels.js';
 import { RasterInputError } from './errors.js';
-import { intrinsicSize, renderSvgAsync } from './render.js';
+import { prepareSvg, renderSvgAsync } from './render.js';
 
 export interface SvgDiffOptions extends PixelDiffOptions {
   /** Render width in pixels for both; default the `before` SVG's own width, capped at `maxWidth`. */
@@ -69,14 +69,18 @@ export async function diffSvgTexts(before: string, after: string, opts?: SvgDiff
   if (!Number.isInteger(maxWidth) || maxWidth < 1) {
     throw new RasterInputError(`maxWidth must be a whole number ≥ 1, got ${String(maxWidth)}`);
   }
+  const preparedBefore = prepareSvg(before);
   let width = o.width;
   if (width === undefined) {
-    width = Math.min(maxWidth, Math.max(1, Math.ceil(intrinsicSize(before).width)));
+    width = Math.min(maxWidth, Math.max(1, Math.ceil(preparedBefore.width)));
   } else if (!Number.isInteger(width) || width < 1) {
     throw new RasterInputError(`width must be a whole number ≥ 1, got ${String(width)}`);
   }
   const renderOpts = { width, background: o.background ?? 'white', maxPixels: o.maxPixels };
-  const [a, b] = await Promise.all([renderSvgAsync(before, renderOpts), renderSvgAsync(after, renderOpts)]);
+  // The first render starts on the thread pool before the second text is prepared.
+  const renderingBefore = renderSvgAsync(preparedBefore, renderOpts);
+  const renderingAfter = renderSvgAsync(after, renderOpts);
+  const [a, b] = await Promise.all([renderingBefore, renderingAfter]);
   const diff = diffImages(a, b, o);
   const result: DifferentSvgs = {
     identical: false,

@@ -41,7 +41,6 @@ export const DEFAULT_MAX_PIXELS = 40_000_000;
 type FitTo = NonNullable<ResvgRenderOptions['fitTo']>;
 
 interface Plan {
-  text: string;
   fitTo: FitTo;
   background: string | undefined;
   maxPixels: number;
@@ -54,8 +53,8 @@ function positiveFinite(value: unknown, name: string): number {
   return value;
 }
 
-/** Validates input and options and returns the text the renderer will see. */
-function plan(svgText: unknown, opts: RenderOptions | undefined): Plan {
+/** Validates the text and returns what the renderer will see (external refs cut, generic families mapped). */
+function prepareText(svgText: unknown): string {
   if (typeof svgText !== 'string') {
     throw new RasterInputError(`SVG text must be a string, got ${typeof svgText}`);
   }
@@ -65,6 +64,11 @@ function plan(svgText: unknown, opts: RenderOptions | undefined): Plan {
       `SVG text is ${svgText.length} characters; the limit is ${MAX_SVG_LENGTH}`,
     );
   }
+  return substituteGenericFamilies(neutralizeExternalRefs(svgText).text);
+}
+
+/** Validates the options. */
+function plan(opts: RenderOptions | undefined): Plan {
   const o = opts ?? {};
   if (o.width !== undefined && o.scale !== undefined) {
     throw new RasterInputError('Give either width or scale, not both');
@@ -81,8 +85,34 @@ function plan(svgText: unknown, opts: RenderOptions | undefined): Plan {
     throw new RasterInputError('background must be a CSS colour string');
   }
   const maxPixels = o.maxPixels === undefined ? DEFAULT_MAX_PIXELS : positiveFinite(o.maxPixels, 'maxPixels');
-  const text = substituteGenericFamilies(neutralizeExternalRefs(svgText).text);
-  return { text, fitTo, background: o.background, maxPixels };
+  return { fitTo, background: o.background, maxPixels };
+}
+
+/** SVG text that was checked and rewritten for rendering; `width`/`height` are its own size. */
+export interface PreparedSvg {
+  readonly width: number;
+  readonly height: number;
+}
+
+const preparedTexts = new WeakMap<PreparedSvg, string>();
+
+/**
+ * Checks and rewrites SVG text once and reads its own size, so that the size
+ * can decide the render options before rendering. Parses without fonts.
+ */
+export function prepareSvg(svgText: string): PreparedSvg {
+  const text = prepareText(svgText);
+  const own = ownSize(text);
+  const prepared: PreparedSvg = Object.freeze({ width: own.width, height: own.height });
+  preparedTexts.set(prepared, text);
+  return prepared;
+}
+
+function textOf(svg: string | PreparedSvg): { text: string; own?: { width: number; height: number } } {
+  if (typeof svg === 'string' || typeof svg !== 'object' || svg === null) return { text: prepareText(svg) };
+  const text = preparedTexts.get(svg);
+  if (text === undefined) throw new RasterInputError('Not an SVG returned by prepareSvg');
+  return { text, own: { width: svg.width, height: svg.height } };
 }
 
 /** The option object handed to resvg-js; every field is one that 2.6.2 knows. */
@@ -166,8 +196,8 @@ function toImage(img: RenderedImage, p: Plan): RgbaImage {
  * renderer reads it. Parses without fonts, so text is not laid out.
  */
 export function intrinsicSize(svgText: string): { width: number; height: number } {
-  const p = plan(svgText, undefined);
-  return ownSize(p.text);
+  const { width, height } = prepareSvg(svgText);
+  return { width, height };
 }
 
 function ownSize(preparedText: string): { width: number; height: number } {
@@ -181,11 +211,12 @@ function ownSize(preparedText: string): { width: number; height: number } {
 
 /** Renders SVG text to RGBA pixels on the calling thread. */
 export function renderSvg(svgText: string, opts?: RenderOptions): RgbaImage {
-  const p = plan(svgText, opts);
+  const text = prepareText(svgText);
+  const p = plan(opts);
   assertOptionsHonoured();
   let r: Resvg;
   try {
-    r = new Resvg(p.text, resvgOptions(p.fitTo, p.background));
+    r = new Resvg(text, resvgOptions(p.fitTo, p.background));
   } catch (err) {
     throw wrap(err);
   }
@@ -200,17 +231,18 @@ export function renderSvg(svgText: string, opts?: RenderOptions): RgbaImage {
 }
 
 /**
- * Renders SVG text to RGBA pixels on libuv's thread pool, so two renders can
- * run on two cores at once. Validation and the size check run synchronously
- * before the first await.
+ * Renders SVG text (or a prepared SVG) to RGBA pixels on libuv's thread pool,
+ * so two renders can run on two cores at once. Validation and the size check
+ * run synchronously before the first await.
  */
-export async function renderSvgAsync(svgText: string, opts?: RenderOptions): Promise<RgbaImage> {
-  const p = plan(svgText, opts);
+export async function renderSvgAsync(svg: string | PreparedSvg, opts?: RenderOptions): Promise<RgbaImage> {
+  const { text, own } = textOf(svg);
+  const p = plan(opts);
   assertOptionsHonoured();
-  checkSize(ownSize(p.text), p);
+  checkSize(own ?? ownSize(text), p);
   let img: RenderedImage;
   try {
-    img = await renderAsync(p.text, resvgOptions(p.fitTo, p.background));
+    img = await renderAsync(text, resvgOptions(p.fitTo, p.background));
   } catch (err) {
     throw wrap(err);
   }
@@ -219,10 +251,11 @@ export async function renderSvgAsync(svgText: string, opts?: RenderOptions): Pro
 
 /** Renders SVG text to a PNG file's bytes. */
 export function renderPng(svgText: string, opts?: RenderOptions): Buffer {
-  const p = plan(svgText, opts);
+  const text = prepareText(svgText);
+  const p = plan(opts);
   assertOptionsHonoured();
   try {
-    const r = new Resvg(p.text, resvgOptions(p.fitTo, p.background));
+    const r = new Resvg(text, resvgOptions(p.fitTo, p.background));
     checkSize({ width: r.width, height: r.height }, p);
     return r.render().asPng();
   } catch (err) {
