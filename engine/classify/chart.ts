@@ -100,7 +100,18 @@ export interface Wedge {
   /** Angles in radians, clockwise from 12 o'clock, as drawn (tilted pies: un-projected). */
   start: number;
   end: number;
+  /** The data share (see PieInfo.shareBasis). */
   share: number;
+  /** Angle over the total angle drawn in the wedge's ring (tilted pies: un-projected angles). */
+  angleShare: number;
+  /** Sector area over the total sector area (tilted pies: un-projected). */
+  areaShare: number;
+  /** Scene index of the text linked as this wedge's label. */
+  labelItem: number | null;
+  /** How far the wedge is pulled out from the common centre (0 when in place). */
+  offset: number;
+  /** Side-wall items belonging to this wedge (extruded pies). */
+  walls: number[];
 }
 
 export interface PieInfo {
@@ -109,14 +120,27 @@ export interface PieInfo {
   radius: number;
   innerRadius: number;
   wedges: Wedge[];
-  /** Top-face ellipse when the pie is tilted: semi-axes, rotation (radians), tilt (radians). */
-  ellipse: { rx: number; ry: number; angle: number; tilt: number } | null;
+  /**
+   * Top-face ellipse when the pie is tilted: centre on the page, semi-axes,
+   * rotation (radians), tilt (radians). cx/cy of the PieInfo are the drawn
+   * centre of the circle (the apex), which differs from the ellipse centre
+   * under perspective.
+   */
+  ellipse: { cx: number; cy: number; rx: number; ry: number; angle: number; tilt: number } | null;
   /** Items that are side walls of an extruded pie. */
   walls: number[];
   /** Wedges pulled out from the centre. */
   exploded: number[];
   /** Radius differs between wedges (rose / polar-area charts). */
   radiusVaries: boolean;
+  /** Offset copies of wedges drawn as shadows (decoration/shadow). */
+  shadows: number[];
+  /**
+   * What `share` measures: 'angle' for pies and donuts (tilted pies:
+   * un-projected angle); 'radius' for roses whose wedges all have the same
+   * angle, where the share is of radial extent (outer − inner radius).
+   */
+  shareBasis: 'angle' | 'radius';
 }
 
 export interface LegendEntry {

@@ -14,7 +14,7 @@ import { chooseAxes, findLabelGroups, toAxis, type LabelGroup } from './find-axe
 import { findLegend } from './find-legend.js';
 import { blendOver, findPage } from './find-page.js';
 import { findPlotArea } from './find-plot-area.js';
-import { findColorBar } from './find-color-bar.js';
+import { findImageColorBar, findVectorColorBar } from './find-color-bar.js';
 import { detectPie } from '../read/pending-shims.js';
 import { recoverSeries } from './recover-values.js';
 import { detectExtrudedBars } from './find-3d-bars.js';
@@ -47,7 +47,10 @@ export function classifyChart(scene: Scene): Chart {
   // Plot area (not for pies).
   const legendItems = new Set<number>(legend.flatMap((e) => [e.swatch, ...(e.label !== null ? [e.label] : [])]));
   if (legendFound.box !== null) legendItems.add(legendFound.box);
-  const plotPool = shapes.filter((s) => !pageSet.has(s.index) && !legendItems.has(s.index));
+  const pool0 = shapes.filter((s) => !pageSet.has(s.index) && !legendItems.has(s.index));
+  const vectorBar = pie ? null : findVectorColorBar(pool0, texts);
+  const barItems = new Set(vectorBar?.items ?? []);
+  const plotPool = pool0.filter((s) => !barItems.has(s.index));
   const plotEvidence = pie ? null : findPlotArea(plotPool, scene.viewBox);
   let plotArea: Box | null = plotEvidence?.box ?? null;
   let background: Rgba = page.color;
@@ -95,7 +98,7 @@ export function classifyChart(scene: Scene): Chart {
   }
   const candidates: ShapeItem[] = [];
   for (const s of shapes) {
-    if (pageSet.has(s.index) || legendItems.has(s.index) || roles[s.index]!.role === 'guide') continue;
+    if (pageSet.has(s.index) || legendItems.has(s.index) || barItems.has(s.index) || roles[s.index]!.role === 'guide') continue;
     if (pie) {
       candidates.push(s);
       continue;
@@ -138,8 +141,16 @@ export function classifyChart(scene: Scene): Chart {
   }
 
   // Colour bar (heatmaps): an image or a strip of cells outside the plot area.
-  const colorBar: ColorBar | null = pie ? null : findColorBar(candidates, images, plotArea, texts);
-  if (colorBar) for (const i of colorBar.items) set(i, 'guide/colorbar');
+  const colorBar: ColorBar | null = pie ? null : vectorBar ?? findImageColorBar(images, plotArea, texts);
+  if (colorBar) {
+    for (const i of colorBar.items) set(i, 'guide/colorbar');
+    // Labels of the colour bar are its scale, not a second value axis.
+    const barBox = unionAll(colorBar.items.map((i) => items[i]!.bbox));
+    if (axes.y2 && barBox && Math.abs(axes.y2.ticks[0]!.position - centerY(barBox)) < barBox.height) {
+      const near = axes.y2.ticks.every((t) => t.label === null || Math.abs(items[t.label]!.bbox.x - right(barBox)) < 4 * (items[t.label] as TextItem).fontSize);
+      if (near) axes = { ...axes, y2: null };
+    }
+  }
 
   // Marks.
   const markPool = candidates.filter((s) => roles[s.index]!.role !== 'guide');
@@ -290,6 +301,10 @@ function markRole(s: ShapeItem, p: Box | null): SubRole | null {
   const size = p ? Math.min(p.width, p.height) : 100;
   if (s.rect && s.fill.kind !== 'none') {
     if (s.rect.width < 0.5 && s.rect.height < 0.5) return null;
+    // Small squares are markers, not bars.
+    const w = s.rect.width;
+    const h = s.rect.height;
+    if (Math.max(w, h) <= 0.025 * size && Math.abs(w - h) <= 0.1 * Math.max(w, h)) return 'mark/point';
     return 'mark/bar';
   }
   const small = Math.max(s.bbox.width, s.bbox.height) <= 0.06 * size;
@@ -321,8 +336,15 @@ function isShadow(s: ShapeItem, pool: ShapeItem[]): boolean {
   );
 }
 
-function isHeatmap(rects: ShapeItem[]): boolean {
-  if (rects.length < 12) return false;
+function isHeatmap(all: ShapeItem[]): boolean {
+  // The cells of a heatmap share one size; take the largest same-size group.
+  const bySize = new Map<string, ShapeItem[]>();
+  for (const r of all) {
+    const k = `${Math.round(r.rect!.width)}x${Math.round(r.rect!.height)}`;
+    bySize.set(k, [...(bySize.get(k) ?? []), r]);
+  }
+  const rects = [...bySize.values()].sort((a, b) => b.length - a.length)[0] ?? [];
+  if (rects.length < 12 || rects.length < 0.8 * all.length) return false;
   const colors = new Map<string, number>();
   for (const r of rects) {
     const k = r.fill.color ? formatHex(r.fill.color) : 'none';

@@ -48,7 +48,7 @@ export function findLabelGroups(texts: TextItem[], excluded: Set<number>): Label
     for (const row of clusterBy(pool, (t) => t.y, (t) => Math.max(1, 0.3 * t.fontSize))) {
       const distinct = dedupeByPosition(row, (t) => (rotatedRow ? t.x : centerX(t.bbox)));
       if (distinct.length < 2) continue;
-      if (!isSpreadAlong(distinct, 'horizontal')) continue;
+      if (!rotatedRow && !isSpreadAlong(distinct, 'horizontal')) continue;
       const labels = distinct.map((t) => ({ text: t.content, position: rotatedRow ? t.x : centerX(t.bbox) }));
       const scale = safeInfer(labels);
       if (scale) groups.push({ direction: 'horizontal', texts: distinct, across: median(distinct.map((t) => t.y)), scale });

@@ -7,6 +7,7 @@ import { PNG } from 'pngjs';
 import type { Rgba } from '../color/types.js';
 import type { Box, ImageItem, ShapeItem, TextItem } from '../read/scene.js';
 import { bottom, centerX, centerY, containsPoint, right } from './boxes.js';
+
 import type { ColorBar } from './chart.js';
 import { parseTickLabel } from './scale/parse-tick-label.js';
 import { fitScale } from './scale/fit-scale.js';
@@ -14,7 +15,8 @@ import { fitScale } from './scale/fit-scale.js';
 const MAX_DATA_URI = 8 * 1024 * 1024;
 const SAMPLES = 64;
 
-export function findColorBar(shapes: ShapeItem[], images: ImageItem[], plot: Box | null, texts: TextItem[]): ColorBar | null {
+/** An embedded image colour bar beside the plot area. */
+export function findImageColorBar(images: ImageItem[], plot: Box | null, texts: TextItem[]): ColorBar | null {
   if (!plot) return null;
   for (const img of images) {
     const b = img.bbox;
@@ -27,8 +29,16 @@ export function findColorBar(shapes: ShapeItem[], images: ImageItem[], plot: Box
     const range = labelRange(b, vertical, texts);
     return { items: [img.index], colors, low: range?.low ?? null, high: range?.high ?? null };
   }
-  // Vector strips: many filled cells of one size, stacked edge to edge, outside the plot.
-  const outside = shapes.filter((s) => s.fill.kind !== 'none' && s.fill.color && !containsPoint(plot, centerX(s.bbox), centerY(s.bbox)));
+  return null;
+}
+
+/**
+ * A vector colour bar: at least eight filled cells of one size in a single
+ * column (or row), edge to edge, with five or more colours, and no cells of
+ * that size beside them (that would be a grid of data, not a key).
+ */
+export function findVectorColorBar(shapes: ShapeItem[], texts: TextItem[]): ColorBar | null {
+  const outside = shapes.filter((s) => s.fill.kind !== 'none' && s.fill.color && s.rect);
   for (const vertical of [true, false]) {
     const key = (s: ShapeItem): string => (vertical ? `${s.bbox.x.toFixed(1)}|${s.bbox.width.toFixed(1)}` : `${s.bbox.y.toFixed(1)}|${s.bbox.height.toFixed(1)}`);
     const groups = new Map<string, ShapeItem[]>();
@@ -38,6 +48,15 @@ export function findColorBar(shapes: ShapeItem[], images: ImageItem[], plot: Box
     }
     for (const g of groups.values()) {
       if (g.length < 8) continue;
+      const size = (s: ShapeItem): string => `${s.bbox.width.toFixed(1)}x${s.bbox.height.toFixed(1)}`;
+      const sizes = new Set(g.map(size));
+      if (sizes.size > 2) continue;
+      // Cells of the same size elsewhere in the figure: part of a data grid.
+      const sameSize = outside.filter((s) => sizes.has(size(s)) && !g.includes(s)).length;
+      if (sameSize > 0) continue;
+      const span = vertical ? Math.max(...g.map((s) => bottom(s.bbox))) - Math.min(...g.map((s) => s.bbox.y)) : Math.max(...g.map((s) => right(s.bbox))) - Math.min(...g.map((s) => s.bbox.x));
+      const cellSum = g.reduce((n, s) => n + (vertical ? s.bbox.height : s.bbox.width), 0);
+      if (cellSum < 0.9 * span) continue;
       const sorted = [...g].sort((p, q) => (vertical ? bottom(q.bbox) - bottom(p.bbox) : p.bbox.x - q.bbox.x));
       const colors = sorted.map((s) => s.fill.color!) as Rgba[];
       if (new Set(colors.map((c) => `${c.r.toFixed(3)},${c.g.toFixed(3)},${c.b.toFixed(3)}`)).size < 5) continue;

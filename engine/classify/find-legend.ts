@@ -20,7 +20,7 @@ export function findLegend(items: readonly SceneItem[], exclude: Set<number>): {
       if (used.has(s.index)) continue;
       const b = s.bbox;
       if (b.width > 3 * fs || b.height > 2.2 * fs) continue;
-      if (b.width < 0.25 * fs && b.height < 0.25 * fs) continue;
+      if (Math.max(b.width, b.height) < 0.55 * fs) continue; // tick marks and dots are not swatches
       const gap = t.bbox.x - (b.x + b.width);
       if (gap < -0.2 * fs || gap > 1.6 * fs) continue;
       if (cy < b.y - 0.45 * fs || cy > b.y + b.height + 0.45 * fs) continue;

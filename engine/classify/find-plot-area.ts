@@ -102,6 +102,11 @@ function boxFromLines(hs: Rule[], vs: Rule[], eps: number): { box: Box; items: n
       const right = vs.find((v) => Math.abs(v.x0 - tx1) <= eps && spans(v, top.y0, bot.y0, eps));
       if (!left || !right) continue;
       const box = { x: tx0, y: top.y0, width: tx1 - tx0, height: bot.y0 - top.y0 };
+      // A frame encloses the other rules: none pokes out of it.
+      const outside =
+        hs.some((h) => h.y0 < box.y - eps || h.y0 > box.y + box.height + eps || Math.min(h.x0, h.x1) < box.x - eps || Math.max(h.x0, h.x1) > box.x + box.width + eps) ||
+        vs.some((v) => v.x0 < box.x - eps || v.x0 > box.x + box.width + eps || Math.min(v.y0, v.y1) < box.y - eps || Math.max(v.y0, v.y1) > box.y + box.height + eps);
+      if (outside) continue;
       if (!best || area(box) > area(best.box)) best = { box, items: [...new Set([top.i, bot.i, left.i, right.i])] };
     }
   }

@@ -91,7 +91,7 @@ export function recoverSeries(input: RecoverInput): Recovered {
   if (areas.length > 0 && areas.length >= lines.length / 2) {
     return { kind: 'area', orientation: null, series: lineLikeSeries([...areas], 'mark/area', group(areas, 'mark/area'), input, nameFor) };
   }
-  if (lines.length > 0 && (points.length < 5 * lines.length || lines.some((l) => l.polylines.reduce((n, p) => n + p.length / 2, 0) > 20))) {
+  if (lines.length > 0 && (points.length < 5 * lines.length || markersOnLines(points, lines) >= 0.7)) {
     return { kind: 'line', orientation: null, series: lineLikeSeries(lines, 'mark/line', group(lines, 'mark/line'), input, nameFor) };
   }
   if (points.length > 0) {
@@ -104,6 +104,27 @@ export function recoverSeries(input: RecoverInput): Recovered {
 /** A bar's box: its rectangle, or for extruded bars the front face's bounds. */
 function boxOf(s: ShapeItem): Box {
   return s.rect ?? s.bbox;
+}
+
+/** Share of point marks centred on a vertex of some line (markers drawn at a line's data points). */
+function markersOnLines(points: ShapeItem[], lines: ShapeItem[]): number {
+  if (points.length === 0) return 0;
+  const cell = 2;
+  const grid = new Set<string>();
+  for (const l of lines) {
+    for (const p of l.polylines) {
+      for (let k = 0; k < p.length; k += 2) grid.add(`${Math.round(p[k]! / cell)},${Math.round(p[k + 1]! / cell)}`);
+    }
+  }
+  let on = 0;
+  for (const pt of points) {
+    const cx = Math.round((pt.circle ? pt.circle.cx : centerX(pt.bbox)) / cell);
+    const cy = Math.round((pt.circle ? pt.circle.cy : centerY(pt.bbox)) / cell);
+    let hit = false;
+    for (let dx = -1; dx <= 1 && !hit; dx++) for (let dy = -1; dy <= 1 && !hit; dy++) if (grid.has(`${cx + dx},${cy + dy}`)) hit = true;
+    if (hit) on++;
+  }
+  return on / points.length;
 }
 
 function makeSeries(name: string | null, color: Rgba | null, sub: SubRole, items: ShapeItem[], points: DataPoint[], axis: 'y' | 'y2' = 'y'): Series {

@@ -238,7 +238,12 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
     const geomBox = boundsOfFlat(polylines);
     if (!geomBox) return;
     const pad = strokeWidth / 2;
-    const bbox = { x: geomBox.x - pad, y: geomBox.y - pad, width: geomBox.width + 2 * pad, height: geomBox.height + 2 * pad };
+    let bbox: Box | null = { x: geomBox.x - pad, y: geomBox.y - pad, width: geomBox.width + 2 * pad, height: geomBox.height + 2 * pad };
+    // What is painted is what the clip lets through.
+    if (ctx.clip) {
+      bbox = clipBox(bbox, ctx.clip);
+      if (!bbox) return;
+    }
     let area = 0;
     let length = 0;
     for (let k = 0; k < polylines.length; k++) {
@@ -268,7 +273,7 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
       dashed: (style.strokeDasharray?.some((d) => d > 0) ?? false),
       area: Math.abs(area),
       length,
-      rect: rectOf(polylines, flat.closed),
+      rect: clippedRect(rectOf(polylines, flat.closed), ctx.clip),
       circle: circleOf(el, ctx.matrix, geomBox, polylines),
     };
     items.push(item);
@@ -621,6 +626,20 @@ function union(a: Box, b: Box): Box {
   const x = Math.min(a.x, b.x);
   const y = Math.min(a.y, b.y);
   return { x, y, width: Math.max(a.x + a.width, b.x + b.width) - x, height: Math.max(a.y + a.height, b.y + b.height) - y };
+}
+
+/** The part of a box inside a clip box; null when nothing is left. */
+function clipBox(b: Box, clip: Box): Box | null {
+  const x = Math.max(b.x, clip.x);
+  const y = Math.max(b.y, clip.y);
+  const w = Math.min(b.x + b.width, clip.x + clip.width) - x;
+  const h = Math.min(b.y + b.height, clip.y + clip.height) - y;
+  return w >= 0 && h >= 0 && (w > 0 || h > 0) ? { x, y, width: w, height: h } : null;
+}
+
+function clippedRect(r: Box | null, clip: Box | null): Box | null {
+  if (!r || !clip) return r;
+  return clipBox(r, clip);
 }
 
 function intersect(a: Box, b: Box): Box {

@@ -1,0 +1,4 @@
+/** The access rules. */
+import type { Rule } from '../rule.js';
+
+export const ACCESS_RULES: Rule[] = [];

@@ -1,0 +1,4 @@
+/** The color rules. */
+import type { Rule } from '../rule.js';
+
+export const COLOR_RULES: Rule[] = [];

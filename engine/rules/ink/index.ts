@@ -1,0 +1,4 @@
+/** The ink rules. */
+import type { Rule } from '../rule.js';
+
+export const INK_RULES: Rule[] = [];
