@@ -83,13 +83,16 @@ function quadAt(p0: number, p1: number, p2: number, t: number): number {
 }
 
 /**
- * The exact bounding box of the (transformed) geometry, or null when there
- * is none or the matrix is not finite. Points of M segments count only when
- * the path draws nothing else (so "M10 10" has a zero-size box at 10,10,
- * while a trailing lone moveto does not enlarge a drawn box).
+ * The exact bounding box of the (transformed) drawn geometry, or null when
+ * there are no segments or the matrix is not finite. A moveto that starts
+ * nothing (followed by another moveto or by the end) does not count, since
+ * it draws nothing; renderers differ there (resvg counts a trailing one and
+ * drops all but the last of consecutive ones). A path with no drawing
+ * segment at all gets the box of its moveto points (zero-size for "M10 10").
  */
 export function pathBBox(segments: readonly Segment[], matrix: Matrix = identity): BBox | null {
   if (!isFiniteMatrix(matrix)) return null;
+  if (segments.length === 0) return null;
   const [a, b, c, d, e, f] = matrix;
   let minX = Infinity;
   let minY = Infinity;
@@ -110,6 +113,7 @@ export function pathBBox(segments: readonly Segment[], matrix: Matrix = identity
   };
   for (const s of segments) {
     if (s.type === 'M') {
+      // Only needed when nothing is drawn; a drawing segment's start covers it otherwise.
       const x = a * s.x + c * s.y + e;
       const y = b * s.x + d * s.y + f;
       if (x < moveMinX) moveMinX = x;
@@ -170,10 +174,7 @@ export function pathBBox(segments: readonly Segment[], matrix: Matrix = identity
         break;
     }
   }
-  if (!drew) {
-    if (moveMinX > moveMaxX) return null;
-    return { minX: moveMinX, minY: moveMinY, maxX: moveMaxX, maxY: moveMaxY };
-  }
+  if (!drew) return { minX: moveMinX, minY: moveMinY, maxX: moveMaxX, maxY: moveMaxY };
   return { minX, minY, maxX, maxY };
 }
 
@@ -230,7 +231,8 @@ function arcLength(w: AffineArc): number {
   let total = 0;
   for (let k = 0; k < pieces; k++) {
     const lo = w.t0 + k * step;
-    total += integrateSpeed(speed, lo, lo + step, radius * Math.abs(step));
+    // Integrating over a decreasing parameter range gives −length: take |…|.
+    total += Math.abs(integrateSpeed(speed, lo, lo + step, radius * Math.abs(step)));
   }
   return total;
 }

@@ -12,6 +12,8 @@
  * - After Z, a drawing command that is not M starts a new subpath at the
  *   closed subpath's start; an explicit M segment is emitted for it so every
  *   subpath in the output begins with M.
+ * - A single comma after a command's last number is tolerated (as browsers
+ *   do: `L10 10, L20 20`).
  * - Error handling follows SVG 1.1 Appendix F.2 as browsers implement it:
  *   everything up to the last complete segment before the first error is
  *   kept, and the error's offset and reason are returned. Numbers that
@@ -22,7 +24,7 @@
  */
 import { arcSegment } from './arc.js';
 import type { ParseError } from './parse-error.js';
-import { isNumberStart, isWsp, scanNumberEnd, skipWsp, tokenValue } from './scan.js';
+import { isNumberStart, isWsp, readNumber as scanNumber, scanned, skipWsp } from './scan.js';
 import type { Segment } from './segments.js';
 
 export interface PathParseResult {
@@ -71,14 +73,14 @@ export function parsePath(d: string): PathParseResult {
 
   // Reads one number at i into args[k]; advances i past it and an optional comma-wsp.
   const readNumber = (k: number, cmdLetter: string): void => {
-    const end = scanNumberEnd(d, i);
+    const end = scanNumber(d, i);
     if (end < 0) {
       throw new PathDataError(
         i,
         i >= n ? `path data ends inside '${cmdLetter}': expected a number` : `expected a number for '${cmdLetter}', found '${d[i]}'`,
       );
     }
-    const v = tokenValue(d, i, end);
+    const v = scanned.value;
     if (!Number.isFinite(v)) throw new PathDataError(i, 'number out of range');
     args[k] = v;
     i = end;
@@ -278,7 +280,12 @@ export function parsePath(d: string): PathParseResult {
           i = j;
           continue;
         }
-        if (comma) throw new PathDataError(j, j >= n ? "path data ends with ','" : `expected a number after ',', found '${d[j]}'`);
+        // One comma after the last number of a command is tolerated before
+        // the next command or the end (browsers accept it); anything else
+        // after a comma is an error.
+        if (comma && j < n && !isCommandLetter(d.charCodeAt(j))) {
+          throw new PathDataError(j, `expected a number after ',', found '${d[j]}'`);
+        }
         i = j;
         break;
       }
@@ -291,6 +298,11 @@ export function parsePath(d: string): PathParseResult {
     throw e;
   }
   return { segments };
+}
+
+function isCommandLetter(c: number): boolean {
+  const upper = c >= 97 ? c - 32 : c;
+  return ((c >= 65 && c <= 90) || (c >= 97 && c <= 122)) && ARG_COUNT[upper] !== undefined;
 }
 
 function checkFinite(x: number, y: number, offset: number): void {

@@ -85,12 +85,13 @@ export function parseTransform(text: string): TransformParseResult {
     args.length = 0;
     // Arguments: number (comma-wsp number)*, then ')'.
     for (;;) {
-      if (text.charCodeAt(i) === 41 && args.length > 0) {
-        i++;
-        break;
-      }
       if (args.length > 0) {
         if (text.charCodeAt(i) === 44) i = skipWsp(text, i + 1);
+        // ')' ends the list; one comma before it is tolerated, as browsers do.
+        if (text.charCodeAt(i) === 41) {
+          i++;
+          break;
+        }
       }
       const end = scanNumberEnd(text, i);
       if (end < 0) {
