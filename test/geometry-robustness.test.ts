@@ -11,6 +11,7 @@ import { parsePath } from '../engine/read/geometry/parse-path.js';
 import { parsePoints } from '../engine/read/geometry/parse-points.js';
 import { parseTransform } from '../engine/read/geometry/parse-transform.js';
 import type { Segment } from '../engine/read/geometry/segments.js';
+import { readNumber, scanned } from '../engine/read/geometry/scan.js';
 import { parsePreserveAspectRatio, parseViewBox } from '../engine/read/geometry/viewbox.js';
 
 // Text biased towards the grammar's own characters, so that near-valid input is common.
@@ -69,6 +70,30 @@ describe('robustness', () => {
       }),
       { numRuns: 3000, seed: 11 },
     );
+  });
+
+  it('reads numbers exactly as ECMAScript Number() does', () => {
+    // source: ECMAScript StringToNumber (correctly rounded decimal conversion)
+    const token = fc
+      .tuple(
+        fc.constantFrom('', '-', '+'),
+        fc.stringMatching(/^[0-9]{0,18}$/),
+        fc.option(fc.stringMatching(/^[0-9]{0,18}$/)),
+        fc.option(fc.tuple(fc.constantFrom('e', 'E'), fc.constantFrom('', '-', '+'), fc.integer({ min: 0, max: 400 }))),
+      )
+      .map(([sign, int, frac, exp]) => `${sign}${int}${frac === null ? '' : `.${frac}`}${exp === null ? '' : `${exp[0]}${exp[1]}${exp[2]}`}`)
+      .filter((t) => /[0-9]/.test(t.replace(/[eE].*$/, '')));
+    fc.assert(
+      fc.property(token, (t) => {
+        expect(readNumber(t, 0)).toBe(t.length);
+        expect(Object.is(scanned.value, Number(t))).toBe(true);
+      }),
+      { numRuns: 5000, seed: 5 },
+    );
+    for (const t of ['0.1', '0.7', '123456789012345', '.000000000000001', '9007199254740993', '1.7976931348623157e308']) {
+      readNumber(t, 0);
+      expect(scanned.value).toBe(Number(t));
+    }
   });
 
   it('relative and absolute spellings of one path parse to the same segments', () => {

@@ -3,6 +3,7 @@
  * like consumers (hit tests, overlap, rasterless coverage estimates).
  */
 import { affineArc } from './arc.js';
+import { cubicAt, quadAt } from './bezier.js';
 import { identity, isFiniteMatrix, type Matrix } from './matrix.js';
 import type { Segment } from './segments.js';
 
@@ -11,16 +12,6 @@ export interface FlattenResult {
   polylines: number[][];
   /** closed[k]: subpath k ended with Z. */
   closed: boolean[];
-}
-
-function cubicAt(p0: number, p1: number, p2: number, p3: number, t: number): number {
-  const mt = 1 - t;
-  return mt * mt * mt * p0 + 3 * mt * mt * t * p1 + 3 * mt * t * t * p2 + t * t * t * p3;
-}
-
-function quadAt(p0: number, p1: number, p2: number, t: number): number {
-  const mt = 1 - t;
-  return mt * mt * p0 + 2 * mt * t * p1 + t * t * p2;
 }
 
 /** Most line pieces one segment is split into, whatever the tolerance. */

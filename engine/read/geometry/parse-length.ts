@@ -5,7 +5,7 @@
  * 1pc = 12pt = 16px. `em` and `ex` need the font size, `%` a reference length.
  */
 import type { ParseError } from './parse-error.js';
-import { scanNumberEnd, skipWsp, tokenValue } from './scan.js';
+import { readNumber, scanned, skipWsp } from './scan.js';
 
 export type LengthUnit = '' | 'px' | 'pt' | 'pc' | 'mm' | 'cm' | 'in' | 'em' | 'ex' | '%';
 
@@ -54,9 +54,9 @@ export function parseLength(text: string): LengthParseResult {
   const n = text.length;
   const start = skipWsp(text, 0);
   if (start >= n) return { length: null, error: { offset: start, message: 'empty length' } };
-  const end = scanNumberEnd(text, start);
+  const end = readNumber(text, start);
   if (end < 0) return { length: null, error: { offset: start, message: 'a length must start with a number' } };
-  const value = tokenValue(text, start, end);
+  const value = scanned.value;
   if (!Number.isFinite(value)) return { length: null, error: { offset: start, message: 'number out of range' } };
   let i = end;
   let unit: LengthUnit = '';

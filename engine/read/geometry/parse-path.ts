@@ -71,7 +71,7 @@ export function parsePath(d: string): PathParseResult {
   let committed = 0; // segments.length after the last complete coordinate set
   const args = [0, 0, 0, 0, 0, 0, 0];
 
-  // Reads one number at i into args[k]; advances i past it and an optional comma-wsp.
+  // Reads one number at i into args[k] and advances i past it.
   const readNumber = (k: number, cmdLetter: string): void => {
     const end = scanNumber(d, i);
     if (end < 0) {

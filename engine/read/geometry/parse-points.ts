@@ -5,7 +5,7 @@
  * are kept; an odd trailing number is dropped and reported.
  */
 import type { ParseError } from './parse-error.js';
-import { scanNumberEnd, skipWsp, tokenValue } from './scan.js';
+import { readNumber, scanned, skipWsp } from './scan.js';
 
 export interface PointsParseResult {
   /** Flat [x0, y0, x1, y1, …]; always of even length. */
@@ -22,11 +22,11 @@ export function parsePoints(text: string): PointsParseResult {
     if (points.length > 0) {
       if (text.charCodeAt(i) === 44) i = skipWsp(text, i + 1);
     }
-    const end = scanNumberEnd(text, i);
+    const end = readNumber(text, i);
     if (end < 0) {
       return finish(points, { offset: i, message: i >= n ? "points end with ','" : `expected a number in points, found '${text[i]}'` });
     }
-    const v = tokenValue(text, i, end);
+    const v = scanned.value;
     if (!Number.isFinite(v)) return finish(points, { offset: i, message: 'number out of range in points' });
     lastStart = i;
     points.push(v);

@@ -20,7 +20,7 @@ import {
   type Matrix,
 } from './matrix.js';
 import type { ParseError } from './parse-error.js';
-import { isWsp, scanNumberEnd, skipWsp, tokenValue } from './scan.js';
+import { isWsp, readNumber, scanned, skipWsp } from './scan.js';
 
 export interface TransformParseResult {
   matrix: Matrix;
@@ -93,12 +93,12 @@ export function parseTransform(text: string): TransformParseResult {
           break;
         }
       }
-      const end = scanNumberEnd(text, i);
+      const end = readNumber(text, i);
       if (end < 0) {
         if (i >= n) return fail(i, `unterminated '${name}(': expected ')'`);
         return fail(i, `expected a number in '${name}(…)'`);
       }
-      const v = tokenValue(text, i, end);
+      const v = scanned.value;
       if (!Number.isFinite(v)) return fail(i, `number out of range in '${name}(…)'`);
       args.push(v);
       if (args.length > 6) return fail(i, `too many arguments to '${name}'`);

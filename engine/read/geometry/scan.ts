@@ -1,17 +1,13 @@
 /**
  * Low-level scanning of the number and separator syntax shared by SVG
  * attribute micro-grammars (path data, transform lists, viewBox, points,
- * lengths). Works on char codes; never allocates except for the final
- * `Number()` conversion of a number token.
+ * lengths). Works on char codes; common numbers are converted without
+ * allocating.
  */
 
 /** SVG white space: space, tab, line feed, carriage return (plus form feed, as CSS allows). */
 export function isWsp(c: number): boolean {
   return c === 32 || c === 9 || c === 10 || c === 13 || c === 12;
-}
-
-export function isDigit(c: number): boolean {
-  return c >= 48 && c <= 57;
 }
 
 /** True for a char that can begin a number token: digit, sign or decimal point. */
@@ -38,43 +34,6 @@ export function skipCommaWsp(s: string, i: number): { index: number; sawComma: b
   return { index: i, sawComma: false };
 }
 
-/**
- * End index of the number token starting at `i`, or -1 when none starts there.
- *
- * Grammar (SVG 1.1 path and basic-data-type number, also CSS <number>):
- * `sign? (digits ('.' digits?)? | '.' digits) (('e'|'E') sign? digits)?`.
- * An `e` that is not followed by digits is left unconsumed, so `1em` scans
- * as the number `1` followed by the unit `em`, and `1.5.5` as `1.5` then `.5`.
- */
-export function scanNumberEnd(s: string, i: number): number {
-  let j = i;
-  let c = s.charCodeAt(j);
-  if (c === 43 || c === 45) c = s.charCodeAt(++j);
-  let digits = 0;
-  while (c >= 48 && c <= 57) {
-    digits++;
-    c = s.charCodeAt(++j);
-  }
-  if (c === 46) {
-    c = s.charCodeAt(++j);
-    while (c >= 48 && c <= 57) {
-      digits++;
-      c = s.charCodeAt(++j);
-    }
-  }
-  if (digits === 0) return -1;
-  if (c === 101 || c === 69) {
-    let k = j + 1;
-    let e = s.charCodeAt(k);
-    if (e === 43 || e === 45) e = s.charCodeAt(++k);
-    if (e >= 48 && e <= 57) {
-      while (e >= 48 && e <= 57) e = s.charCodeAt(++k);
-      j = k;
-    }
-  }
-  return j;
-}
-
 const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22];
 
 /**
@@ -85,9 +44,13 @@ const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12,
 export const scanned = { value: 0 };
 
 /**
- * Scans the number token at `i` (grammar of scanNumberEnd) and stores its
- * value in `scanned.value`. Returns the end index, or -1 when no number starts
- * at `i`.
+ * Scans the number token at `i` and stores its value in `scanned.value`.
+ * Returns the end index, or -1 when no number starts at `i`.
+ *
+ * Grammar (SVG 1.1 path and basic-data-type number, also CSS <number>):
+ * `sign? (digits ('.' digits?)? | '.' digits) (('e'|'E') sign? digits)?`.
+ * An `e` that is not followed by digits is left unconsumed, so `1em` scans
+ * as the number `1` followed by the unit `em`, and `1.5.5` as `1.5` then `.5`.
  *
  * Plain decimals with at most 15 significant digits are converted without
  * allocating: the digits form an exact integer m and the result m / 10^k is
@@ -138,14 +101,4 @@ export function readNumber(s: string, i: number): number {
     scanned.value = Number(s.slice(i, j));
   }
   return j;
-}
-
-/**
- * Converts the token `s[start, end)` (already validated by scanNumberEnd).
- * Single digits and short integers take a fast path; everything else goes
- * through `Number()`, which rounds correctly.
- */
-export function tokenValue(s: string, start: number, end: number): number {
-  if (end - start === 1) return s.charCodeAt(start) - 48;
-  return Number(s.slice(start, end));
 }

@@ -4,7 +4,7 @@
  */
 import type { Matrix } from './matrix.js';
 import type { ParseError } from './parse-error.js';
-import { scanNumberEnd, skipCommaWsp, skipWsp, tokenValue } from './scan.js';
+import { readNumber, scanned, skipCommaWsp, skipWsp } from './scan.js';
 
 export interface ViewBox {
   readonly x: number;
@@ -33,11 +33,11 @@ export function parseViewBox(text: string): ViewBoxParseResult {
       const sep = skipCommaWsp(text, i);
       i = sep.index;
     }
-    const end = scanNumberEnd(text, i);
+    const end = readNumber(text, i);
     if (end < 0) {
       return { viewBox: null, error: { offset: i, message: i >= n ? 'viewBox needs four numbers' : 'expected a number in viewBox' } };
     }
-    const value = tokenValue(text, i, end);
+    const value = scanned.value;
     if (!Number.isFinite(value)) return { viewBox: null, error: { offset: i, message: 'number out of range in viewBox' } };
     v.push(value);
     i = end;
