@@ -10,7 +10,7 @@ import type { Box, ImageItem, Scene, SceneItem, ShapeItem, TextItem } from '../r
 import type { ChartKind } from '../report/types.js';
 import { area, bottom, centerX, centerY, containsPoint, expand, right, straightLineOf, unionAll } from './boxes.js';
 import type { Axis, Chart, ColorBar, ItemRole, LegendEntry, Series, SubRole } from './chart.js';
-import { chooseAxes, findLabelGroups, toAxis, type LabelGroup } from './find-axes.js';
+import { axisAsBands, chooseAxes, fillThinnedBands, findLabelGroups, shareOnTicks, toAxis, type LabelGroup } from './find-axes.js';
 import { findLegend } from './find-legend.js';
 import { blendOver, findPage } from './find-page.js';
 import { findPlotArea } from './find-plot-area.js';
@@ -194,6 +194,36 @@ export function classifyChart(scene: Scene): Chart {
   const heat = !pie && isHeatmap(marks.filter((m) => roles[m.index]!.sub === 'mark/bar'));
   if (heat) for (const m of marks) if (roles[m.index]!.sub === 'mark/bar') set(m.index, 'mark/cell');
 
+  // Category axes drawn with numeric-looking labels: bars centred on every tick, or clock-time
+  // labels without dates under lines, are categories.
+  if (!pie && !heat) {
+    const labelOf = (i: number): string | null => (items[i]?.kind === 'text' ? (items[i] as TextItem).content : null);
+    const barMarks = marks.filter((m) => roles[m.index]!.sub === 'mark/bar');
+    const lineMarks = marks.filter((m) => roles[m.index]!.sub === 'mark/line' || roles[m.index]!.sub === 'mark/area');
+    for (const name of ['x', 'y'] as const) {
+      const a = axes[name];
+      if (!a || a.scale === 'band' || a.ticks.length < 2) continue;
+      const along = (b: Box): number => (a.direction === 'horizontal' ? centerX(b) : centerY(b));
+      const barPos = barMarks.map((m) => along(m.rect ?? m.bbox));
+      const barsAcross = barMarks.length > 0 && barMarks.every((m) => (a.direction === 'horizontal' ? (m.rect ?? m.bbox).width < (m.rect ?? m.bbox).height * 4 : true));
+      const clock = a.ticks.every((t) => t.label !== null && /^\s*\d{1,2}:\d{2}\s*$/.test(labelOf(t.label) ?? ''));
+      if ((barPos.length >= 2 && barsAcross && shareOnTicks(a, barPos) >= 0.8 && isCategoryDirection(name, barMarks)) || (clock && lineMarks.length > 0)) {
+        axes = { ...axes, [name]: axisAsBands(a, texts, labelOf) };
+      }
+    }
+    // Thinned band labels: fill in the skipped category names where marks sit between labels.
+    for (const name of ['x', 'y'] as const) {
+      const a = axes[name];
+      if (!a || a.scale !== 'band') continue;
+      const pos = marks.flatMap((m) => {
+        const sub = roles[m.index]!.sub;
+        if (sub === 'mark/line' || sub === 'mark/area') return m.polylines.flatMap((p) => p.filter((_, k) => k % 2 === (a.direction === 'horizontal' ? 0 : 1)));
+        return [a.direction === 'horizontal' ? centerX(m.bbox) : centerY(m.bbox)];
+      });
+      axes = { ...axes, [name]: fillThinnedBands(a, pos) };
+    }
+  }
+
   // Text roles beyond ticks and legend.
   assignTextRoles(texts, roles, plotArea, scene, axes, pie !== null);
 
@@ -220,6 +250,15 @@ export function classifyChart(scene: Scene): Chart {
     title: scene.title ?? titleText(texts, roles),
   };
   return chart;
+}
+
+/** Bars' category direction: vertical bars spread along x, horizontal bars along y. */
+function isCategoryDirection(axis: 'x' | 'y', bars: ShapeItem[]): boolean {
+  const r = (m: ShapeItem): Box => m.rect ?? m.bbox;
+  const widths = new Set(bars.map((b) => Math.round(r(b).width * 10)));
+  const heights = new Set(bars.map((b) => Math.round(r(b).height * 10)));
+  const vertical = widths.size <= heights.size;
+  return axis === 'x' ? vertical : !vertical;
 }
 
 function pieBox(pie: NonNullable<Chart['pie']>): Box {

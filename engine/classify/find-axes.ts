@@ -49,9 +49,22 @@ export function findLabelGroups(texts: TextItem[], excluded: Set<number>): Label
       const distinct = dedupeByPosition(row, (t) => (rotatedRow ? t.x : centerX(t.bbox)));
       if (distinct.length < 2) continue;
       if (!rotatedRow && !isSpreadAlong(distinct, 'horizontal')) continue;
-      const labels = distinct.map((t) => ({ text: t.content, position: rotatedRow ? t.x : centerX(t.bbox) }));
-      const scale = safeInfer(labels);
-      if (scale) groups.push({ direction: 'horizontal', texts: distinct, across: median(distinct.map((t) => t.y)), scale });
+      const posOf = (t: TextItem): number => (rotatedRow ? t.x : centerX(t.bbox));
+      let members = distinct;
+      let scale = safeInfer(members.map((t) => ({ text: t.content, position: posOf(t) })));
+      if ((!scale || scale.scale === 'band') && distinct.length >= 4) {
+        // Some libraries pull the end labels inward (anchored start / end) so they stay inside the figure.
+        const majority = mostCommon(distinct.map((t) => t.anchor));
+        const trimmed = distinct.filter((t, k) => !((k === 0 || k === distinct.length - 1) && t.anchor !== majority));
+        if (trimmed.length < distinct.length && trimmed.length >= 2) {
+          const retry = safeInfer(trimmed.map((t) => ({ text: t.content, position: posOf(t) })));
+          if (retry && retry.scale !== 'band') {
+            scale = retry;
+            members = trimmed;
+          }
+        }
+      }
+      if (scale) groups.push({ direction: 'horizontal', texts: members, across: median(members.map((t) => t.y)), scale });
     }
   }
 
@@ -117,6 +130,12 @@ function isSpreadAlong(texts: TextItem[], _dir: 'horizontal'): boolean {
     if (gap > 0.15 * sorted[k]!.fontSize) gaps++;
   }
   return gaps >= sorted.length - 1 - Math.floor((sorted.length - 1) / 4);
+}
+
+function mostCommon<T>(xs: T[]): T | undefined {
+  const counts = new Map<T, number>();
+  for (const x of xs) counts.set(x, (counts.get(x) ?? 0) + 1);
+  return [...counts.entries()].sort((a, b) => b[1] - a[1])[0]?.[0];
 }
 
 export function median(xs: number[]): number {
@@ -259,4 +278,58 @@ export function nearestBand(axis: Axis, position: number): string | null {
   }
   const step = axis.bands.length > 1 ? Math.abs(axis.bands[1]!.position - axis.bands[0]!.position) : Infinity;
   return bestD <= 0.75 * step ? best : null;
+}
+
+/** A numeric or time axis read as categories: its tick labels become the bands. */
+export function axisAsBands(axis: Axis, texts: readonly { content: string }[], labelOf: (i: number) => string | null): Axis {
+  void texts;
+  const bands = axis.ticks
+    .map((t) => ({ name: (t.label !== null ? labelOf(t.label) : null) ?? String(t.value), position: t.position }))
+    .sort((a, b) => a.position - b.position);
+  const ordered = axis.direction === 'vertical' ? [...bands].reverse() : bands;
+  return { ...axis, scale: 'band', fit: null, bands: ordered, domain: ordered.map((b) => b.name), ticks: axis.ticks.map((t) => ({ ...t, value: (t.label !== null ? labelOf(t.label) : null) ?? String(t.value) })) };
+}
+
+/** Share of positions within a fifth of a tick step of some tick. */
+export function shareOnTicks(axis: Axis, positions: number[]): number {
+  if (positions.length === 0 || axis.ticks.length < 2) return 0;
+  const ps = axis.ticks.map((t) => t.position).sort((a, b) => a - b);
+  const step = (ps[ps.length - 1]! - ps[0]!) / (ps.length - 1);
+  let on = 0;
+  for (const p of positions) if (ps.some((t) => Math.abs(t - p) <= 0.2 * step)) on++;
+  return on / positions.length;
+}
+
+/**
+ * Band labels thinned by the plotting library ("Day 1", "Day 3", ...) while
+ * marks sit on every category: when the labels count in a constant step and
+ * marks fall between them, the skipped names are filled in.
+ */
+export function fillThinnedBands(axis: Axis, positions: number[]): Axis {
+  if (axis.scale !== 'band' || !axis.bands || axis.bands.length < 2) return axis;
+  const byPos = [...axis.bands].sort((a, b) => a.position - b.position);
+  const parts = byPos.map((b) => /^(.*?)(\d+)(\D*)$/.exec(b.name));
+  if (parts.some((m) => !m)) return axis;
+  const prefix = parts[0]![1]!;
+  const suffix = parts[0]![3]!;
+  if (parts.some((m) => m![1] !== prefix || m![3] !== suffix)) return axis;
+  const nums = parts.map((m) => Number(m![2]));
+  const d = nums[1]! - nums[0]!;
+  if (Math.abs(d) < 2 || !nums.every((v, k) => k === 0 || v - nums[k - 1]! === d)) return axis;
+  const step = (byPos[byPos.length - 1]!.position - byPos[0]!.position) / (byPos.length - 1);
+  const sub = step / Math.abs(d);
+  const between = positions.filter((p) => byPos.every((b) => Math.abs(b.position - p) > 0.25 * step)).length;
+  if (between < 0.25 * positions.length) return axis;
+  const filled: { name: string; position: number }[] = [];
+  const lo = Math.min(...positions, byPos[0]!.position);
+  const hi = Math.max(...positions, byPos[byPos.length - 1]!.position);
+  const first = Math.floor((lo - byPos[0]!.position) / sub - 0.25);
+  const last = Math.ceil((hi - byPos[0]!.position) / sub + 0.25);
+  for (let k = first; k <= last; k++) {
+    const value = nums[0]! + (k * d) / Math.abs(d);
+    if (value < 0) continue;
+    filled.push({ name: `${prefix}${value}${suffix}`, position: byPos[0]!.position + k * sub });
+  }
+  const ordered = axis.direction === 'vertical' ? [...filled].reverse() : filled;
+  return { ...axis, bands: ordered, domain: ordered.map((b) => b.name) };
 }

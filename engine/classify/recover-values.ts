@@ -128,7 +128,7 @@ function markersOnLines(points: ShapeItem[], lines: ShapeItem[]): number {
 }
 
 function makeSeries(name: string | null, color: Rgba | null, sub: SubRole, items: ShapeItem[], points: DataPoint[], axis: 'y' | 'y2' = 'y'): Series {
-  return { name, color, colorHex: color ? formatHex(color) : null, axis, markType: sub, items: items.map((i) => i.index), points };
+  return { name, color, colorHex: color ? formatHex({ ...color, alpha: 1 }) : null, axis, markType: sub, items: items.map((i) => i.index), points };
 }
 
 function barSeries(
@@ -261,12 +261,14 @@ function lineLikeSeries(
       const color = paintOf(s, sub);
       const yAxis = pickValueAxis(s, input);
       const pts: DataPoint[] = [];
-      const baseY = plotArea ? bottom(plotArea) : Infinity;
+      if (sub === 'mark/area') {
+        out.push(makeSeries(nameFor(color), color, sub, [s], areaPoints(s, yAxis, input), 'y'));
+        continue;
+      }
       for (const poly of s.polylines) {
         for (let k = 0; k < poly.length; k += 2) {
           const px = poly[k]!;
           const py = poly[k + 1]!;
-          if (sub === 'mark/area' && Math.abs(py - baseY) < 0.5) continue;
           const x = axes.x?.scale === 'band' ? nearestBand(axes.x, px) : axes.x?.fit ? invertAxis(axes.x, px) : px;
           const y = yAxis?.fit ? invertAxis(yAxis, py) : py;
           const prev = pts[pts.length - 1];
@@ -274,24 +276,44 @@ function lineLikeSeries(
           pts.push({ x, y, items: [s.index] });
         }
       }
-      if (sub === 'mark/area') dedupeAreaOutline(pts);
       out.push(makeSeries(nameFor(color), color, sub, [s], pts, yAxis === axes.y2 && axes.y2 ? 'y2' : 'y'));
     }
   }
   return out;
 }
 
-/** An area's outline runs out along the top and back along the baseline; keep one value per x (the upper). */
-function dedupeAreaOutline(pts: DataPoint[]): void {
-  const byX = new Map<string, DataPoint>();
-  for (const p of pts) {
-    const k = String(p.x);
-    const cur = byX.get(k);
-    if (!cur || p.y > cur.y) byX.set(k, p);
+/**
+ * An area's outline runs out along its top and back along its bottom. Per
+ * vertex column: the value is the top read through the scale, minus the
+ * bottom when the bottom is another band's top (stacked areas).
+ */
+function areaPoints(s: ShapeItem, yAxis: Axis | null, input: RecoverInput): DataPoint[] {
+  const { axes, plotArea } = input;
+  const cols = new Map<number, { x: number; top: number; bottom: number }>();
+  for (const poly of s.polylines) {
+    for (let k = 0; k < poly.length; k += 2) {
+      const px = poly[k]!;
+      const py = poly[k + 1]!;
+      const key = Math.round(px * 4);
+      const c = cols.get(key);
+      if (!c) cols.set(key, { x: px, top: py, bottom: py });
+      else {
+        c.top = Math.min(c.top, py);
+        c.bottom = Math.max(c.bottom, py);
+      }
+    }
   }
-  const kept = [...byX.values()];
-  pts.length = 0;
-  pts.push(...kept);
+  const zeroPos = yAxis?.fit && yAxis.scale !== 'log' ? yAxis.fit.b : NaN;
+  const floor = plotArea ? bottom(plotArea) : Math.max(...[...cols.values()].map((c) => c.bottom));
+  const pts: DataPoint[] = [];
+  for (const c of [...cols.values()].sort((a, b) => a.x - b.x)) {
+    const onBase = Math.abs(c.bottom - floor) < 1 || (Number.isFinite(zeroPos) && Math.abs(c.bottom - zeroPos) < 1) || c.bottom === c.top;
+    const topV = yAxis?.fit ? invertAxis(yAxis, c.top) : c.top;
+    const y = onBase || !yAxis?.fit ? topV : topV - invertAxis(yAxis, c.bottom);
+    const x = axes.x?.scale === 'band' ? nearestBand(axes.x, c.x) : axes.x?.fit ? invertAxis(axes.x, c.x) : c.x;
+    pts.push({ x, y, items: [s.index] });
+  }
+  return pts;
 }
 
 /** Lines on a chart with two value axes: the axis whose range the line fits (by legend order it can't be told). */

@@ -699,21 +699,59 @@ function rectOf(polylines: number[][], closed: boolean[]): Box | null {
   return b;
 }
 
-/** A circle: a circle element, or a closed outline whose points are all at one distance from the box centre. */
+/** A circle: a circle element, or one closed-looking outline whose points fit one circle (algebraic least squares). */
 function circleOf(el: XmlElement, m: Matrix, box: Box, polylines: number[][]): ShapeItem['circle'] {
-  const cx = box.x + box.width / 2;
-  const cy = box.y + box.height / 2;
-  const r = (box.width + box.height) / 4;
-  if (Math.abs(box.width - box.height) > 0.02 * Math.max(box.width, box.height, 1e-9)) return null;
-  if (el.name === 'circle' || (el.name === 'ellipse' && Math.abs(m[1]) < 1e-9)) return { cx, cy, r };
+  if (Math.abs(box.width - box.height) > 0.05 * Math.max(box.width, box.height, 1e-9)) return null;
+  if (el.name === 'circle' || (el.name === 'ellipse' && Math.abs(m[1]) < 1e-9)) {
+    return { cx: box.x + box.width / 2, cy: box.y + box.height / 2, r: (box.width + box.height) / 4 };
+  }
   if (polylines.length !== 1) return null;
   const p = polylines[0]!;
-  if (p.length < 16) return null;
+  const n = p.length / 2;
+  if (n < 5) return null;
+  const fit = fitCircle(p);
+  if (!fit) return null;
   for (let k = 0; k < p.length; k += 2) {
-    const d = Math.hypot(p[k]! - cx, p[k + 1]! - cy);
-    if (Math.abs(d - r) > 0.03 * r + 1e-9) return null;
+    const d = Math.hypot(p[k]! - fit.cx, p[k + 1]! - fit.cy);
+    if (Math.abs(d - fit.r) > 0.04 * fit.r + 1e-9) return null;
   }
-  return { cx, cy, r };
+  // The points must go round: their angles cover most of the circle.
+  const seen = new Set<number>();
+  for (let k = 0; k < p.length; k += 2) seen.add(Math.floor(((Math.atan2(p[k + 1]! - fit.cy, p[k]! - fit.cx) + Math.PI) / (2 * Math.PI)) * 8) % 8);
+  return seen.size >= 7 ? fit : null;
+}
+
+/** Kåsa's algebraic circle fit: minimises Σ(x² + y² + Dx + Ey + F)². */
+function fitCircle(p: number[]): { cx: number; cy: number; r: number } | null {
+  const n = p.length / 2;
+  let mx = 0;
+  let my = 0;
+  for (let k = 0; k < p.length; k += 2) {
+    mx += p[k]!;
+    my += p[k + 1]!;
+  }
+  mx /= n;
+  my /= n;
+  let suu = 0, svv = 0, suv = 0, suuu = 0, svvv = 0, suvv = 0, svuu = 0;
+  for (let k = 0; k < p.length; k += 2) {
+    const u = p[k]! - mx;
+    const v = p[k + 1]! - my;
+    suu += u * u;
+    svv += v * v;
+    suv += u * v;
+    suuu += u * u * u;
+    svvv += v * v * v;
+    suvv += u * v * v;
+    svuu += v * u * u;
+  }
+  const det = suu * svv - suv * suv;
+  if (Math.abs(det) < 1e-12) return null;
+  const bu = 0.5 * (suuu + suvv);
+  const bv = 0.5 * (svvv + svuu);
+  const uc = (bu * svv - bv * suv) / det;
+  const vc = (bv * suu - bu * suv) / det;
+  const r = Math.sqrt(uc * uc + vc * vc + (suu + svv) / n);
+  return Number.isFinite(r) ? { cx: uc + mx, cy: vc + my, r } : null;
 }
 
 function isAncestor(a: XmlElement, b: XmlElement): boolean {

@@ -58,18 +58,25 @@ export function parseXml(input: string, options: ParseOptions = {}): XmlDocument
   let trackedOffset = 0;
   let trackedLine = 1;
   let trackedLineStart = 0;
+  // The next newline at or after trackedOffset (n when there is none): long single-line files stay linear.
+  let nextNewline = -1;
   const lineCol = (offset: number): [number, number] => {
     if (offset < trackedOffset) {
       // Rare (errors pointing backwards): recount from the start.
       trackedOffset = 0;
       trackedLine = 1;
       trackedLineStart = 0;
+      nextNewline = -1;
     }
-    let nl = src.indexOf('\n', trackedOffset);
-    while (nl !== -1 && nl < offset) {
+    if (nextNewline < trackedOffset) {
+      const nl = src.indexOf('\n', trackedOffset);
+      nextNewline = nl === -1 ? n : nl;
+    }
+    while (nextNewline < offset) {
       trackedLine++;
-      trackedLineStart = nl + 1;
-      nl = src.indexOf('\n', nl + 1);
+      trackedLineStart = nextNewline + 1;
+      const nl = src.indexOf('\n', trackedLineStart);
+      nextNewline = nl === -1 ? n : nl;
     }
     trackedOffset = offset;
     return [trackedLine, offset - trackedLineStart + 1];

@@ -28,7 +28,7 @@ import type { ShapeItem, TextItem } from '../../read/scene.js';
 import type { PieInfo, Wedge } from '../chart.js';
 import { fitCircleWedge } from './fit-circle-wedge.js';
 import { groupWedges, type FittedShape, type Member, type PieGroup } from './group-wedges.js';
-import { linkLabels } from './link-labels.js';
+import { linkLabels, type Leader } from './link-labels.js';
 import { ringArea, ringExtent, ringFromPolyline, type Ring } from './outline.js';
 import { detectTilted, type Candidate } from './tilted-wedges.js';
 
@@ -36,6 +36,8 @@ import { detectTilted, type Candidate } from './tilted-wedges.js';
 const RADIUS_VARIES = 0.02;
 /** Angles within this (relative) count as equal. */
 const ANGLE_EQUAL = 0.02;
+/** Starts within this of 2π (radians) are written as (slightly negative) starts near 0. */
+const SNAP = 1e-4;
 
 /** Outer ring (largest area) and an optional hole; null when the shape cannot be a wedge. */
 function ringsOf(s: ShapeItem): { ring: Ring; hole: Ring | null } | null {
@@ -113,11 +115,27 @@ export function detectPie(shapes: ShapeItem[], texts: TextItem[]): PieInfo | nul
     if (tiltedArea > flatArea * 1.01) chosen = { group: tilted.group, tilted };
   }
   if (!chosen) return null;
-  return buildInfo(chosen, texts);
+  return buildInfo(chosen, texts, leadersOf(shapes));
 }
 
-function buildInfo(chosen: Chosen, texts: TextItem[]): PieInfo {
+/** Stroked, unfilled open lines: possible leader lines from wedges to labels (end points only). */
+function leadersOf(shapes: readonly ShapeItem[]): Leader[] {
+  const out: Leader[] = [];
+  for (const s of shapes) {
+    if (s.kind !== 'shape' || s.stroke.kind === 'none' || (s.fill.kind !== 'none' && s.fill.opacity > 0)) continue;
+    if (s.polylines.length !== 1 || s.closed[0]) continue;
+    const p = s.polylines[0]!;
+    if (p.length < 4) continue;
+    const L = { x0: p[0]!, y0: p[1]!, x1: p[p.length - 2]!, y1: p[p.length - 1]! };
+    if ([L.x0, L.y0, L.x1, L.y1].every(Number.isFinite)) out.push(L);
+  }
+  return out;
+}
+
+function buildInfo(chosen: Chosen, texts: TextItem[], leaders: Leader[]): PieInfo {
   const { group, tilted } = chosen;
+  // A start a hair short of a full turn is a start at 12 o'clock measured with rounding error.
+  for (const m of group.members) if (2 * Math.PI - m.start < SNAP) m.start -= 2 * Math.PI;
   const members = [...group.members].sort((a, b) => a.start - b.start);
 
   // Rings: wedges at the same radii share the angle; roses (one layer, radii differ) share the whole.
@@ -138,7 +156,7 @@ function buildInfo(chosen: Chosen, texts: TextItem[]): PieInfo {
   const shareBasis: 'angle' | 'radius' = radiusVaries && anglesEqual ? 'radius' : 'angle';
 
   const toPlane = tilted ? (x: number, y: number) => tilted.rect.forward(x, y) : undefined;
-  const labels = linkLabels(members, texts, toPlane);
+  const labels = linkLabels(members, texts, toPlane, leaders);
   const textByIndex = new Map(texts.map((t, i) => [i, t] as const));
 
   const wallsOf = new Map<number, number[]>();

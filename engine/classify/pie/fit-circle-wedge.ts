@@ -35,7 +35,13 @@ const MIN_EXPLAINED = 0.97;
 /** Largest allowed chord height of an arc edge, relative to the outer radius. */
 const MAX_SAGITTA = 0.025;
 /** At most this many distinct candidate circles are verified per outline. */
-const MAX_CANDIDATES = 16;
+const MAX_CANDIDATES = 8;
+/** On outlines with more simplified vertices than this, only as many sharpest corners are tried as centres. */
+const MAX_APEX_TRIALS = 24;
+/** Only the best supported few candidates are also refitted to their supporting vertices. */
+const MAX_REFITS = 3;
+/** At most about this many circles through simplified vertices are tried. */
+const MAX_ARC_TRIALS = 48;
 
 export interface CircleWedgeFit {
   cx: number;
@@ -383,6 +389,34 @@ function refine(ring: Ring, fit: CircleWedgeFit, S: number): CircleWedgeFit {
   return current;
 }
 
+/** Length of the outline's edges whose both ends lie on the circle. */
+function support(ring: Ring, cx: number, cy: number, R: number, tau: number): number {
+  const n = ring.x.length;
+  let total = 0;
+  let prevOn = Math.abs(Math.hypot(ring.x[n - 1]! - cx, ring.y[n - 1]! - cy) - R) <= tau;
+  for (let i = 0; i < n; i++) {
+    const on = Math.abs(Math.hypot(ring.x[i]! - cx, ring.y[i]! - cy) - R) <= tau;
+    if (on && prevOn) {
+      const j = i === 0 ? n - 1 : i - 1;
+      total += Math.hypot(ring.x[i]! - ring.x[j]!, ring.y[i]! - ring.y[j]!);
+    }
+    prevOn = on;
+  }
+  return total;
+}
+
+/** Least-squares circle through the vertices lying within tau of the candidate circle. */
+function refitSupport(ring: Ring, c: Candidate, tau: number): Candidate | null {
+  const pts: number[] = [];
+  for (let i = 0; i < ring.x.length; i++) {
+    if (Math.abs(Math.hypot(ring.x[i]! - c.cx, ring.y[i]! - c.cy) - c.R) <= tau) pts.push(ring.x[i]!, ring.y[i]!);
+  }
+  if (pts.length < 6) return null;
+  const res = fitCentre([{ points: pts, radius: 0 }], [], { cx: c.cx, cy: c.cy, radii: [c.R] });
+  if (!Number.isFinite(res.cx) || !Number.isFinite(res.cy) || !(res.radii[0]! > 0)) return null;
+  return { cx: res.cx, cy: res.cy, R: res.radii[0]!, weight: c.weight };
+}
+
 interface Candidate {
   cx: number;
   cy: number;
@@ -402,50 +436,64 @@ export function fitCircleWedge(ring: Ring, hole: Ring | null = null): CircleWedg
   const m = keep.length;
   const n = ring.x.length;
   const cands: Candidate[] = [];
-  const pushCand = (c: { cx: number; cy: number; r: number } | null, weight: number): void => {
+  const pushCand = (c: { cx: number; cy: number; r: number } | null): void => {
     if (!c || !(c.r > S / 40) || !(c.r < 5 * S)) return;
-    cands.push({ cx: c.cx, cy: c.cy, R: c.r, weight });
+    cands.push({ cx: c.cx, cy: c.cy, R: c.r, weight: 0 });
   };
+  const stride = Math.max(1, Math.ceil(m / MAX_ARC_TRIALS));
   // Circles through consecutive simplified vertices.
   if (m >= 3) {
-    for (let k = 0; k < m; k++) {
+    for (let k = 0; k < m; k += stride) {
       const a = keep[k]!;
       const b = keep[(k + 1) % m]!;
       const c = keep[(k + 2) % m]!;
-      const w = Math.hypot(ring.x[b]! - ring.x[a]!, ring.y[b]! - ring.y[a]!) + Math.hypot(ring.x[c]! - ring.x[b]!, ring.y[c]! - ring.y[b]!);
-      pushCand(circleThrough(ring.x[a]!, ring.y[a]!, ring.x[b]!, ring.y[b]!, ring.x[c]!, ring.y[c]!), w);
+      pushCand(circleThrough(ring.x[a]!, ring.y[a]!, ring.x[b]!, ring.y[b]!, ring.x[c]!, ring.y[c]!));
     }
   }
   // Shallow arcs merged into one simplified segment: circle through its ends and a middle vertex.
-  for (let k = 0; k < m; k++) {
+  for (let k = 0; k < m; k += stride) {
     const a = keep[k]!;
     const bRaw = k + 1 < m ? keep[k + 1]! : keep[0]! + n;
     if (bRaw - a < 2) continue;
     const mid = Math.floor((a + bRaw) / 2) % n;
     const b = bRaw % n;
-    const w = Math.hypot(ring.x[b]! - ring.x[a]!, ring.y[b]! - ring.y[a]!);
-    pushCand(circleThrough(ring.x[a]!, ring.y[a]!, ring.x[mid]!, ring.y[mid]!, ring.x[b]!, ring.y[b]!), w);
+    pushCand(circleThrough(ring.x[a]!, ring.y[a]!, ring.x[mid]!, ring.y[mid]!, ring.x[b]!, ring.y[b]!));
   }
-  // Centre at a vertex (pie apex); radius to the farthest vertex.
-  for (const v of keep) {
+  // Centre at a vertex (pie apex); radius to the farthest vertex. On long outlines only the sharpest corners.
+  let apexes = keep;
+  if (m > MAX_APEX_TRIALS) {
+    const turn = (k: number): number => {
+      const a = keep[(k + m - 1) % m]!;
+      const b = keep[k]!;
+      const c = keep[(k + 1) % m]!;
+      return Math.abs(angleStep(ring.x[b]! - ring.x[a]!, ring.y[b]! - ring.y[a]!, ring.x[c]! - ring.x[b]!, ring.y[c]! - ring.y[b]!));
+    };
+    apexes = keep
+      .map((v, k) => ({ v, t: turn(k) }))
+      .sort((a, b) => b.t - a.t)
+      .slice(0, MAX_APEX_TRIALS)
+      .map((e) => e.v);
+  }
+  for (const v of apexes) {
     let far = 0;
     for (let i = 0; i < n; i++) far = Math.max(far, Math.hypot(ring.x[i]! - ring.x[v]!, ring.y[i]! - ring.y[v]!));
-    if (far > 0) cands.push({ cx: ring.x[v]!, cy: ring.y[v]!, R: far, weight: far });
+    if (far > 0) cands.push({ cx: ring.x[v]!, cy: ring.y[v]!, R: far, weight: 0 });
   }
-  // Group near-identical candidates; verify the best supported first.
-  const tauS = tolerance(0, S);
-  const groups: Candidate[] = [];
-  for (const c of cands) {
-    const tol = Math.max(tauS, 0.004 * c.R);
-    const g = groups.find((q) => Math.abs(q.cx - c.cx) <= tol && Math.abs(q.cy - c.cy) <= tol && Math.abs(q.R - c.R) <= tol);
-    if (g) g.weight += c.weight;
-    else groups.push({ ...c });
-  }
-  groups.sort((a, b) => b.weight - a.weight);
-  if (process.env.PIE_DEBUG) console.log(groups.slice(0, 20));
+  // Rank by support (outline length lying on the circle); verify the best first, each as given and
+  // as refitted to the vertices that support it.
+  for (const c of cands) c.weight = support(ring, c.cx, c.cy, c.R, tolerance(c.R, S));
+  cands.sort((a, b) => b.weight - a.weight);
+  const tried: Candidate[] = [];
   let fit: CircleWedgeFit | null = null;
-  for (const g of groups.slice(0, MAX_CANDIDATES)) {
-    fit = verifyWedge(ring, g.cx, g.cy, g.R, tolerance(g.R, S));
+  for (const c of cands) {
+    if (tried.length >= MAX_CANDIDATES || !(c.weight > 0)) break;
+    const tol = 0.25 * tolerance(c.R, S);
+    if (tried.some((q) => Math.abs(q.cx - c.cx) <= tol && Math.abs(q.cy - c.cy) <= tol && Math.abs(q.R - c.R) <= tol)) continue;
+    tried.push(c);
+    fit = verifyWedge(ring, c.cx, c.cy, c.R, tolerance(c.R, S));
+    if (fit) break;
+    const again = tried.length <= MAX_REFITS ? refitSupport(ring, c, tolerance(c.R, S)) : null;
+    if (again) fit = verifyWedge(ring, again.cx, again.cy, again.R, tolerance(again.R, S));
     if (fit) break;
   }
   if (!fit) return null;

@@ -60,6 +60,9 @@ function apexWedge(c: Candidate): ApexWedge | null {
     const prev = keep[(k + m - 1) % m]!;
     const ax = ring.x[a]!;
     const ay = ring.y[a]!;
+    const l1 = Math.hypot(ring.x[next]! - ax, ring.y[next]! - ay);
+    const l2 = Math.hypot(ring.x[prev]! - ax, ring.y[prev]! - ay);
+    if (l1 < 0.08 * S || l2 < 0.08 * S) continue;
     // Rim: original vertices from `next` forward to `prev`.
     const rimIdx: number[] = [];
     for (let i = next; ; i = (i + 1) % n) {
@@ -70,8 +73,6 @@ function apexWedge(c: Candidate): ApexWedge | null {
     if (rimIdx.length < 3 || rimIdx.length <= bestCount) continue;
     let maxD = 0;
     for (const i of rimIdx) maxD = Math.max(maxD, Math.hypot(ring.x[i]! - ax, ring.y[i]! - ay));
-    const l1 = Math.hypot(ring.x[next]! - ax, ring.y[next]! - ay);
-    const l2 = Math.hypot(ring.x[prev]! - ax, ring.y[prev]! - ay);
     if (l1 < 0.2 * maxD || l2 < 0.2 * maxD) continue;
     // The rim sweeps monotonically around the apex…
     let sweep = 0;
@@ -91,7 +92,8 @@ function apexWedge(c: Candidate): ApexWedge | null {
     }
     if (!ok || sign === 0 || Math.abs(sweep) >= 2 * Math.PI) continue;
     // …and turns smoothly, always the same way, at its simplified vertices.
-    const rimKeep = keep.filter((v) => rimIdx.includes(v));
+    const rimKeep: number[] = [];
+    for (let t = 1; t < m; t++) rimKeep.push(keep[(k + t) % m]!);
     if (rimKeep.length < 3) continue;
     let turnSign = 0;
     for (let t = 1; t + 1 < rimKeep.length; t++) {
