@@ -10,8 +10,9 @@ import { runRules } from './run-rules.js';
 import { runRedraw } from './run-redraw.js';
 import { runDiff } from './run-diff.js';
 import { runMerge } from './run-merge.js';
+import { UsageError } from './usage-error.js';
 
-export class UsageError extends Error {}
+export { UsageError } from './usage-error.js';
 
 export async function main(argv: string[]): Promise<number> {
   let exitCode = 0;

@@ -125,6 +125,18 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
     return inherited ? intersect(inherited, box) : box;
   };
 
+  // Class-only hint lists repeat across thousands of marks: share them.
+  const hintCache = new WeakMap<string[], Map<string, string[]>>();
+  const hintsFor = (id: string | undefined, cls: string | undefined, parent: string[]): string[] => {
+    const make = (): string[] => [...(id ? [`#${id}`] : []), ...(cls ? cls.split(/\s+/).filter(Boolean).map((c) => `.${c}`) : []), ...parent];
+    if (id) return make();
+    let m = hintCache.get(parent);
+    if (!m) hintCache.set(parent, (m = new Map()));
+    let h = m.get(cls!);
+    if (!h) m.set(cls!, (h = make()));
+    return h;
+  };
+
   const walk = (el: XmlElement, ctx: Context): void => {
     if (items.length >= maxItems) return;
     if (SKIP.has(el.name)) return;
@@ -144,7 +156,7 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
     }
     const id = el.attribute('id');
     const cls = el.attribute('class');
-    const hints = id || cls ? [...(id ? [`#${id}`] : []), ...(cls ? cls.split(/\s+/).filter(Boolean).map((c) => `.${c}`) : []), ...ctx.hints] : ctx.hints;
+    const hints = id || cls ? hintsFor(id, cls, ctx.hints) : ctx.hints;
     const ignoreAttr = el.attribute('data-plumbline-ignore');
     const ignore = ignoreAttr ? [...ctx.ignore, ...ignoreAttr.split(',').map((s) => s.trim()).filter(Boolean)] : ctx.ignore;
     const opacity = ctx.opacity * style.opacity;
@@ -225,6 +237,10 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
 
   const pushShape = (el: XmlElement, ctx: Context): void => {
     const style = ctx.style!;
+    if (el.name === 'circle' && Math.abs(ctx.matrix[1]) < 1e-12 && Math.abs(ctx.matrix[2]) < 1e-12 && Math.abs(Math.abs(ctx.matrix[0]) - Math.abs(ctx.matrix[3])) < 1e-9) {
+      pushCircle(el, ctx, style);
+      return;
+    }
     const segments = shapeSegments(el, style, viewBox, warn);
     if (segments.length === 0) return;
     const pc = paintCtx(style);
@@ -277,6 +293,74 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
       circle: circleOf(el, ctx.matrix, geomBox, polylines),
     };
     items.push(item);
+  };
+
+  /**
+   * Circles under a translate/uniform-scale transform (the common case of
+   * scatter plots with tens of thousands of points): exact measures without
+   * building arc segments; the outline is a 16-gon.
+   */
+  const pushCircle = (el: XmlElement, ctx: Context, style: ComputedStyle): void => {
+    const a = el.attributes;
+    const lenOf = (v: string | undefined, base: number): number => {
+      if (v === undefined) return 0;
+      const parsed = parseLength(v);
+      return parsed.length ? lengthToPx(parsed.length, { percentBase: base, fontSize: style.fontSize }) ?? NaN : NaN;
+    };
+    const lr = lenOf(a.r, Math.hypot(viewBox.width, viewBox.height) / Math.SQRT2);
+    const lcx = lenOf(a.cx, viewBox.width);
+    const lcy = lenOf(a.cy, viewBox.height);
+    if (!Number.isFinite(lr) || !Number.isFinite(lcx) || !Number.isFinite(lcy) || lr < 0) {
+      warn('<circle>: r, cx or cy is not a finite number', el);
+      return;
+    }
+    if (lr === 0) return;
+    const m = ctx.matrix;
+    const scale = Math.abs(m[0]);
+    const cx = m[0] * lcx + m[4];
+    const cy = m[3] * lcy + m[5];
+    const r = lr * scale;
+    const pc = paintCtx(style);
+    const fill = resolvePaint(style.fill, ctx.opacity * style.fillOpacity, pc);
+    const stroke = resolvePaint(style.stroke, ctx.opacity * style.strokeOpacity, pc);
+    const strokeWidth = stroke.kind === 'none' ? 0 : Math.max(0, style.strokeWidth) * scale;
+    if (fill.kind === 'none' && (stroke.kind === 'none' || strokeWidth === 0)) return;
+    const poly = new Array<number>(32);
+    for (let k = 0; k < 16; k++) {
+      poly[2 * k] = cx + r * Math.cos((k * Math.PI) / 8);
+      poly[2 * k + 1] = cy + r * Math.sin((k * Math.PI) / 8);
+    }
+    const pad = strokeWidth / 2;
+    let bbox: Box | null = { x: cx - r - pad, y: cy - r - pad, width: 2 * (r + pad), height: 2 * (r + pad) };
+    if (ctx.clip) {
+      bbox = clipBox(bbox, ctx.clip);
+      if (!bbox) return;
+    }
+    items.push({
+      kind: 'shape',
+      index: items.length,
+      element: el,
+      source: sourceOf(el, ctx),
+      matrix: m,
+      bbox,
+      clip: ctx.clip,
+      filter: ctx.filter,
+      hints: ctx.hints,
+      ignore: ctx.ignore,
+      tag: 'circle',
+      segments: [],
+      segmentsInWorld: false,
+      polylines: [poly],
+      closed: [true],
+      fill,
+      stroke,
+      strokeWidth,
+      dashed: style.strokeDasharray?.some((d) => d > 0) ?? false,
+      area: Math.PI * r * r,
+      length: 2 * Math.PI * r,
+      rect: null,
+      circle: { cx, cy, r },
+    });
   };
 
   const pushText = (el: XmlElement, ctx: Context): void => {

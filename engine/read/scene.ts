@@ -65,7 +65,10 @@ interface ItemBase {
 export interface ShapeItem extends ItemBase {
   kind: 'shape';
   tag: string;
-  /** Segments in world coordinates where the transform allows (otherwise local; see `segmentsInWorld`). */
+  /**
+   * Path segments in the element's own user space (see `matrix`). Empty for
+   * circles drawn under a translate/uniform scale: `circle` describes them exactly.
+   */
   segments: Segment[];
   segmentsInWorld: boolean;
   /** Flattened outline in world coordinates: one flat [x0, y0, x1, y1, ...] array per subpath. */
