@@ -170,6 +170,11 @@ export function classifyChart(scene: Scene): Chart {
     const region = plotArea ? expand(plotArea, eps) : null;
     for (const s of markPool) {
       if (extrusions.includes(s.index)) continue;
+      if (extrusion?.fronts.includes(s.index)) {
+        set(s.index, 'mark/bar');
+        marks.push(s);
+        continue;
+      }
       if (s.filter) {
         // Items drawn through a filter that sit under a same-shaped item are shadows.
         if (isShadow(s, markPool)) {
@@ -191,7 +196,7 @@ export function classifyChart(scene: Scene): Chart {
   }
 
   // Heatmap cells: many same-size rectangles on a grid with many colours.
-  const heat = !pie && isHeatmap(marks.filter((m) => roles[m.index]!.sub === 'mark/bar'));
+  const heat = !pie && !extrusion && isHeatmap(marks.filter((m) => roles[m.index]!.sub === 'mark/bar' && m.rect !== null));
   if (heat) for (const m of marks) if (roles[m.index]!.sub === 'mark/bar') set(m.index, 'mark/cell');
 
   // Category axes drawn with numeric-looking labels: bars centred on every tick, or clock-time

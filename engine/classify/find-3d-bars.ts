@@ -25,7 +25,7 @@ function verticalEdges(p: number[]): number {
   for (let k = 0; k < 8; k += 2) {
     const dx = Math.abs(p[(k + 2) % 8]! - p[k]!);
     const dy = Math.abs(p[(k + 3) % 8]! - p[k + 1]!);
-    if (dx <= 0.01 * dy && dy > 0) n++;
+    if (dx <= 0.15 * dy && dy > 0) n++;
   }
   return n;
 }

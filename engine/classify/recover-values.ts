@@ -84,6 +84,13 @@ export function recoverSeries(input: RecoverInput): Recovered {
     return m;
   };
 
+  // Extruded (3D) bars: drawn through a 3D projection that 2D axes cannot invert. Series are kept
+  // (by front-face colour); their values are not recovered rather than guessed.
+  if (input.extrusion && bars.length >= 2) {
+    const groups = group(bars, 'mark/bar');
+    const series = [...groups.values()].map((members) => makeSeries(nameFor(members[0]!.fill.color), members[0]!.fill.color, 'mark/bar', members, []));
+    return { kind: 'bar', orientation: 'vertical', series };
+  }
   // Bars dominate when present in number; lines beat scattered points of the same colour (markers on lines).
   if (bars.length >= 2 && bars.length >= weight(lines) && bars.length >= 0.5 * weight(points)) {
     return barSeries(bars, group(bars, 'mark/bar'), input, nameFor);

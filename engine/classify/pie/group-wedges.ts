@@ -175,29 +175,63 @@ function gather(fits: readonly FittedShape[], cx: number, cy: number, extent: nu
  */
 export function groupWedges(all: readonly FittedShape[], extent: number): PieGroup | null {
   if (all.length === 0) return null;
-  // 1. Shadow copies that look like shadows (filtered, more transparent, darker).
-  const byR = [...all].sort((a, b) => a.fit.R - b.fit.R);
+  // 1. Shadow copies that look like shadows (filtered, more transparent, darker). Only fits of
+  //    nearly the same radius and nearby centres are compared: a sweep over x within radius bands.
   const shadowOf = new Map<number, number>();
-  for (let i = 0; i < byR.length; i++) {
-    const a = byR[i]!;
-    for (let j = i + 1; j < byR.length && byR[j]!.fit.R <= a.fit.R * 1.01 + 1e-9; j++) {
-      const b = byR[j]!;
-      if (!sameShape(a.fit, b.fit)) continue;
-      if (shadowLike(a.shape, b.shape)) shadowOf.set(a.item, b.item);
-      else if (shadowLike(b.shape, a.shape)) shadowOf.set(b.item, a.item);
+  const byR = [...all].sort((a, b) => a.fit.R - b.fit.R);
+  for (let i = 0; i < byR.length; ) {
+    let j = i;
+    while (j < byR.length && byR[j]!.fit.R <= byR[i]!.fit.R * 1.02 + 1e-9) j++;
+    // Band [i, j) plus the next band's start overlaps enough for a 1 % radius tolerance.
+    let k = j;
+    while (k < byR.length && byR[k]!.fit.R <= byR[j - 1]!.fit.R * 1.01 + 1e-9) k++;
+    const band = byR.slice(i, k).sort((a, b) => a.fit.cx - b.fit.cx);
+    for (let p = 0; p < band.length; p++) {
+      const a = band[p]!;
+      const reach = MAX_SHADOW_OFFSET * a.fit.R * 1.02;
+      for (let q = p + 1; q < band.length && band[q]!.fit.cx - a.fit.cx <= reach; q++) {
+        const b = band[q]!;
+        if (!sameShape(a.fit, b.fit)) continue;
+        if (shadowLike(a.shape, b.shape)) shadowOf.set(a.item, b.item);
+        else if (shadowLike(b.shape, a.shape)) shadowOf.set(b.item, a.item);
+      }
     }
+    i = j;
   }
   const fits = all.filter((f) => !shadowOf.has(f.item));
   if (fits.length === 0) return null;
 
-  // 2. Candidate centres: clusters of wedge centres…
+  // 2. Candidate centres: clusters of wedge centres (a grid hash keeps this linear)…
   const centres: [number, number][] = [];
   const clusters: FittedShape[][] = [];
+  const cell = Math.max(...fits.map((f) => centreTol(f.fit.R, extent)));
+  const grid = new Map<string, FittedShape[][]>();
+  const key = (gx: number, gy: number): string => `${gx},${gy}`;
   for (const f of [...fits].sort((a, b) => b.fit.area - a.fit.area)) {
     const tol = centreTol(f.fit.R, extent);
-    const c = clusters.find((cl) => Math.hypot(cl[0]!.fit.cx - f.fit.cx, cl[0]!.fit.cy - f.fit.cy) <= tol);
-    if (c) c.push(f);
-    else clusters.push([f]);
+    const gx = Math.floor(f.fit.cx / cell);
+    const gy = Math.floor(f.fit.cy / cell);
+    let found: FittedShape[] | null = null;
+    for (let dx = -1; dx <= 1 && !found; dx++) {
+      for (let dy = -1; dy <= 1 && !found; dy++) {
+        for (const cl of grid.get(key(gx + dx, gy + dy)) ?? []) {
+          if (Math.hypot(cl[0]!.fit.cx - f.fit.cx, cl[0]!.fit.cy - f.fit.cy) <= tol) {
+            found = cl;
+            break;
+          }
+        }
+      }
+    }
+    if (found) {
+      found.push(f);
+      continue;
+    }
+    const cl = [f];
+    clusters.push(cl);
+    const k = key(gx, gy);
+    const list = grid.get(k);
+    if (list) list.push(cl);
+    else grid.set(k, [cl]);
   }
   clusters.sort((a, b) => b.length - a.length || b[0]!.fit.area - a[0]!.fit.area);
   for (const cl of clusters.slice(0, 24)) {
