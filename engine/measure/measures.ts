@@ -4,6 +4,11 @@
  */
 import type { Chart } from '../classify/chart.js';
 import { measureInk, type InkMeasure } from './ink.js';
+import { measureBaseline, type BaselineMeasure } from './baseline.js';
+import { measureRamp, type RampMeasure } from './color-ramp.js';
+import { measureMarkContrast, type MarkContrast } from './mark-contrast.js';
+import { measurePalette, type PaletteMeasure } from './palette.js';
+import { measureProjection, type ProjectionMeasure } from './projection.js';
 
 export interface MeasureOptions {
   /** Intended display width in CSS px (null: the figure's own width). */
@@ -12,9 +17,27 @@ export interface MeasureOptions {
 
 export interface Measures {
   ink: InkMeasure;
+  /** Bars and areas: baseline and lie factor (null for other charts). */
+  baseline: BaselineMeasure | null;
+  /** Categorical colours and their pairwise ΔE00 under normal and simulated CVD vision. */
+  palette: PaletteMeasure;
+  /** The quantity colour ramp (colour bar or numeric legend) and its lightness shape. */
+  ramp: RampMeasure | null;
+  /** WCAG contrast of each categorical mark colour against what is behind it. */
+  markContrast: MarkContrast[];
+  /** Tilted/extruded pies and extruded bars. */
+  projection: ProjectionMeasure;
 }
 
 export function measureChart(chart: Chart, options: MeasureOptions = {}): Measures {
   void options;
-  return { ink: measureInk(chart) };
+  const palette = measurePalette(chart);
+  return {
+    ink: measureInk(chart),
+    baseline: measureBaseline(chart),
+    palette,
+    ramp: measureRamp(chart),
+    markContrast: measureMarkContrast(chart, palette.entries),
+    projection: measureProjection(chart),
+  };
 }

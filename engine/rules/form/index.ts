@@ -1,4 +1,6 @@
 /** The form rules. */
 import type { Rule } from '../rule.js';
+import { angleJudgment } from './angle-judgment.js';
+import { pieManySlices } from './pie-many-slices.js';
 
-export const FORM_RULES: Rule[] = [];
+export const FORM_RULES: Rule[] = [pieManySlices, angleJudgment];
