@@ -59,17 +59,29 @@ function parseColour(c: string): [number, number, number] {
   return [0, 2, 4].map((i) => parseInt(hex.slice(i, i + 2), 16)) as [number, number, number];
 }
 
+/** Spans of `<defs>` sections: colours there may only show through a `<use>` that overrides them. */
+function defsSpans(svg: string): [number, number][] {
+  const spans: [number, number][] = [];
+  for (const m of svg.matchAll(/<defs\b[\s\S]*?<\/defs>/g)) spans.push([m.index!, m.index! + m[0].length]);
+  return spans;
+}
+
 /**
- * The chart with one colour attribute changed: the middle one of its
- * chromatic fill/stroke/color values, set to a clearly different colour.
+ * The chart with one colour attribute changed: among the chromatic
+ * fill/stroke/color values outside `<defs>` (fills preferred), the middle one
+ * is set to a clearly different colour.
  */
 export function changeOneColour(svg: string): string | null {
+  const defs = defsSpans(svg);
   const uses = [...svg.matchAll(COLOUR_USE)].filter((m) => {
+    if (defs.some(([a, b]) => m.index! >= a && m.index! < b)) return false;
     const [r, g, b] = parseColour(m[2]);
     return Math.max(r, g, b) - Math.min(r, g, b) >= 40;
   });
-  if (uses.length === 0) return null;
-  const m = uses[Math.floor(uses.length / 2)];
+  const fills = uses.filter((m) => m[1].startsWith('fill'));
+  const pool = fills.length > 0 ? fills : uses;
+  if (pool.length === 0) return null;
+  const m = pool[Math.floor(pool.length / 2)];
   const [r, g, b] = parseColour(m[2]);
   const replacement = r > g && r > b ? '#1f9e3a' : '#d62728';
   const start = m.index! + m[1].length;
