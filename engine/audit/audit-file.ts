@@ -20,9 +20,10 @@ export function runRules(analysis: Analysis, measures: Measures, config: Config 
   const findings: Finding[] = [];
   for (const rule of ALL_RULES) {
     const setting = config.rules[rule.id];
-    if (setting?.severity === 'off') continue;
+    const configured = setting?.severity;
+    if (configured === 'off') continue;
     if (scene.ignore.includes(rule.id) || scene.ignore.includes('*')) continue;
-    const severity = setting?.severity && setting.severity !== 'off' ? setting.severity : rule.severity;
+    const severity = configured ?? rule.severity;
     const thresholds = { ...rule.thresholds, ...(setting?.thresholds ?? {}) };
     let out;
     try {
@@ -43,7 +44,7 @@ export function runRules(analysis: Analysis, measures: Measures, config: Config 
       if (items.length > 0 && items.every((it) => it && (it.ignore.includes(rule.id) || it.ignore.includes('*')))) continue;
       findings.push({
         rule: rule.id,
-        severity: setting?.severity && setting.severity !== 'off' ? severity : (f.severity ?? severity),
+        severity: configured !== undefined ? severity : (f.severity ?? severity),
         message: f.message,
         elements: f.elements,
         measures: f.measures,

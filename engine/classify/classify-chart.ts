@@ -15,7 +15,7 @@ import { findLegend } from './find-legend.js';
 import { blendOver, findPage } from './find-page.js';
 import { findPlotArea } from './find-plot-area.js';
 import { findImageColorBar, findVectorColorBar } from './find-color-bar.js';
-import { detectPie } from '../read/pending-shims.js';
+import { detectPie } from './pie/detect-wedges.js';
 import { recoverSeries } from './recover-values.js';
 import { detectExtrudedBars } from './find-3d-bars.js';
 
@@ -165,7 +165,7 @@ export function classifyChart(scene: Scene): Chart {
       marks.push(items[w.item] as ShapeItem);
     }
     for (const i of pie.walls) set(i, 'decoration/3d-face');
-    for (const i of pie.shadows ?? []) set(i, 'decoration/shadow');
+    for (const i of pie.shadows) set(i, 'decoration/shadow');
   } else {
     const region = plotArea ? expand(plotArea, eps) : null;
     for (const s of markPool) {
@@ -267,9 +267,14 @@ function isCategoryDirection(axis: 'x' | 'y', bars: ShapeItem[]): boolean {
 }
 
 function pieBox(pie: NonNullable<Chart['pie']>): Box {
-  const ry = pie.ellipse ? pie.ellipse.ry : pie.radius;
-  const rx = pie.ellipse ? pie.ellipse.rx : pie.radius;
-  return { x: pie.cx - rx, y: pie.cy - ry, width: 2 * rx, height: 2 * ry };
+  if (pie.ellipse) {
+    const e = pie.ellipse;
+    // The axis-aligned box of the (possibly rotated) top-face ellipse.
+    const hw = Math.hypot(e.rx * Math.cos(e.angle), e.ry * Math.sin(e.angle));
+    const hh = Math.hypot(e.rx * Math.sin(e.angle), e.ry * Math.cos(e.angle));
+    return { x: e.cx - hw, y: e.cy - hh, width: 2 * hw, height: 2 * hh };
+  }
+  return { x: pie.cx - pie.radius, y: pie.cy - pie.radius, width: 2 * pie.radius, height: 2 * pie.radius };
 }
 
 interface GuideRole {

@@ -59,7 +59,7 @@ export function recoverSeries(input: RecoverInput): Recovered {
       items: pie.wedges.map((w) => w.item),
       points: pie.wedges.map((w) => ({ x: w.label ?? nameFor(w.color), y: w.share, items: [w.item] })),
     };
-    const donut = pie.innerRadius > 0.15 * pie.radius;
+    const donut = !pie.radiusVaries && pie.innerRadius > 0.15 * pie.radius;
     return { kind: donut ? 'donut' : 'pie', orientation: null, series: [series] };
   }
 
