@@ -308,16 +308,43 @@ export function shareOnTicks(axis: Axis, positions: number[]): number {
 export function fillThinnedBands(axis: Axis, positions: number[]): Axis {
   if (axis.scale !== 'band' || !axis.bands || axis.bands.length < 2) return axis;
   const byPos = [...axis.bands].sort((a, b) => a.position - b.position);
-  const parts = byPos.map((b) => /^(.*?)(\d+)(\D*)$/.exec(b.name));
-  if (parts.some((m) => !m)) return axis;
-  const prefix = parts[0]![1]!;
-  const suffix = parts[0]![3]!;
-  if (parts.some((m) => m![1] !== prefix || m![3] !== suffix)) return axis;
-  const nums = parts.map((m) => Number(m![2]));
+  // Either clock times (HH:MM, counted in minutes) or a fixed text around a counting number.
+  const clock = byPos.map((b) => /^(\d{1,2}):(\d{2})$/.exec(b.name.trim()));
+  let nums: number[];
+  let nameOf: (v: number) => string;
+  if (clock.every((m) => m)) {
+    nums = clock.map((m) => Number(m![1]) * 60 + Number(m![2]));
+    const pad = clock[0]![1]!.length === 2;
+    nameOf = (v) => `${String(Math.floor(v / 60) % 24).padStart(pad ? 2 : 1, '0')}:${String(v % 60).padStart(2, '0')}`;
+  } else {
+    const parts = byPos.map((b) => /^(.*?)(\d+)(\D*)$/.exec(b.name));
+    if (parts.some((m) => !m)) return axis;
+    const prefix = parts[0]![1]!;
+    const suffix = parts[0]![3]!;
+    if (parts.some((m) => m![1] !== prefix || m![3] !== suffix)) return axis;
+    nums = parts.map((m) => Number(m![2]));
+    nameOf = (v) => `${prefix}${v}${suffix}`;
+  }
   const d = nums[1]! - nums[0]!;
   if (Math.abs(d) < 2 || !nums.every((v, k) => k === 0 || v - nums[k - 1]! === d)) return axis;
-  const step = (byPos[byPos.length - 1]!.position - byPos[0]!.position) / (byPos.length - 1);
-  const sub = step / Math.abs(d);
+  // The finest step that puts marks on categories: try the divisors of d, largest gap first.
+  const step0 = (byPos[byPos.length - 1]!.position - byPos[0]!.position) / (byPos.length - 1);
+  let parts = 0;
+  for (const n of [2, 3, 4, 5, 6, 10, 12, 15, 20, 30, 60].filter((n) => Math.abs(d) % n === 0 && n <= Math.abs(d))) {
+    const sub0 = step0 / n;
+    const onGrid = positions.filter((p) => {
+      const k = (p - byPos[0]!.position) / sub0;
+      return Math.abs(k - Math.round(k)) < 0.15;
+    }).length;
+    if (onGrid >= 0.9 * positions.length) {
+      parts = n;
+      break;
+    }
+  }
+  if (parts === 0) return axis;
+  const step = step0;
+  const sub = step / parts;
+  const unit = d / parts;
   const between = positions.filter((p) => byPos.every((b) => Math.abs(b.position - p) > 0.25 * step)).length;
   if (between < 0.25 * positions.length) return axis;
   const filled: { name: string; position: number }[] = [];
@@ -326,9 +353,9 @@ export function fillThinnedBands(axis: Axis, positions: number[]): Axis {
   const first = Math.floor((lo - byPos[0]!.position) / sub - 0.25);
   const last = Math.ceil((hi - byPos[0]!.position) / sub + 0.25);
   for (let k = first; k <= last; k++) {
-    const value = nums[0]! + (k * d) / Math.abs(d);
+    const value = nums[0]! + k * unit;
     if (value < 0) continue;
-    filled.push({ name: `${prefix}${value}${suffix}`, position: byPos[0]!.position + k * sub });
+    filled.push({ name: nameOf(value), position: byPos[0]!.position + k * sub });
   }
   const ordered = axis.direction === 'vertical' ? [...filled].reverse() : filled;
   return { ...axis, bands: ordered, domain: ordered.map((b) => b.name) };
