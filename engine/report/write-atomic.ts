@@ -1,11 +1,12 @@
 /** Atomic file writes: a temporary file in the same folder, fsync, rename. A reader sees the old file or the new one, never half. */
 import { randomBytes } from 'node:crypto';
-import { open, rename, unlink, mkdir } from 'node:fs/promises';
+import { open, rename, unlink, mkdir, readdir } from 'node:fs/promises';
 import { basename, dirname, join } from 'node:path';
 
 export async function writeFileAtomic(path: string, data: string | Uint8Array): Promise<void> {
   const dir = dirname(path);
   await mkdir(dir, { recursive: true });
+  await removeStaleTemporaries(dir, basename(path));
   const tmp = join(dir, `.${basename(path)}.${process.pid}.${randomBytes(4).toString('hex')}.tmp`);
   const handle = await open(tmp, 'wx', 0o644);
   try {
@@ -28,5 +29,31 @@ export async function writeFileAtomic(path: string, data: string | Uint8Array): 
   if (d) {
     await d.sync().catch(() => undefined);
     await d.close();
+  }
+}
+
+/** Temporaries left by a writer that was killed (its process is gone) are removed before the next write. */
+async function removeStaleTemporaries(dir: string, base: string): Promise<void> {
+  const prefix = `.${base}.`;
+  let names: string[];
+  try {
+    names = await readdir(dir);
+  } catch {
+    return;
+  }
+  for (const name of names) {
+    if (!name.startsWith(prefix) || !name.endsWith('.tmp')) continue;
+    const pid = Number(name.slice(prefix.length).split('.')[0]);
+    if (!Number.isInteger(pid) || pid === process.pid || isAlive(pid)) continue;
+    await unlink(join(dir, name)).catch(() => undefined);
+  }
+}
+
+function isAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (err) {
+    return (err as NodeJS.ErrnoException).code === 'EPERM';
   }
 }
