@@ -74,13 +74,6 @@ function valueAxisOf(chart: Chart): Axis | null {
   return null;
 }
 
-/** Median of a non-empty list. */
-function median(v: number[]): number {
-  const s = [...v].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
-}
-
 /**
  * The baseline measure of a bar or area chart, or null when the chart has
  * no such marks, is drawn in 3D, has no numeric value axis with a fitted
@@ -177,16 +170,37 @@ function spanOfDomain(axis: Axis): number {
 
 /**
  * The edge shared by the most bars. Ties (every bar the same length) go to
- * the edge nearer the position of 0.
+ * the edge nearer the position of 0. Sorted ends and a sliding window of
+ * ±tol: O(n log n).
  */
 function barBaseline(spans: Span[], tol: number, zeroPosition: number | null): number | null {
-  const ends = spans.flatMap((s) => [s.lo, s.hi]);
+  const ends: { p: number; k: number }[] = [];
+  spans.forEach((s, k) => ends.push({ p: s.lo, k }, { p: s.hi, k }));
+  ends.sort((a, b) => a.p - b.p);
+  const inWindow = new Map<number, number>();
+  let lo = 0;
+  let hi = 0;
+  let sum = 0;
   let best: number | null = null;
   let bestCount = 0;
-  for (const e of ends) {
-    const near = spans.filter((s) => Math.abs(s.lo - e) <= tol || Math.abs(s.hi - e) <= tol);
-    const count = near.length;
-    const at = median(near.flatMap((s) => (Math.abs(s.lo - e) <= tol ? [s.lo] : [s.hi])));
+  for (let i = 0; i < ends.length; i++) {
+    const e = ends[i]!.p;
+    while (hi < ends.length && ends[hi]!.p <= e + tol) {
+      const k = ends[hi]!.k;
+      inWindow.set(k, (inWindow.get(k) ?? 0) + 1);
+      sum += ends[hi]!.p;
+      hi++;
+    }
+    while (ends[lo]!.p < e - tol) {
+      const k = ends[lo]!.k;
+      const c = inWindow.get(k)! - 1;
+      if (c === 0) inWindow.delete(k);
+      else inWindow.set(k, c);
+      sum -= ends[lo]!.p;
+      lo++;
+    }
+    const count = inWindow.size;
+    const at = sum / (hi - lo);
     if (count > bestCount) {
       best = at;
       bestCount = count;
@@ -202,6 +216,18 @@ function barBaseline(spans: Span[], tol: number, zeroPosition: number | null): n
  * cross-axis interval on the same side): length to the stack's far end.
  */
 function barColumns(spans: Span[], base: number, tol: number, value: (p: number) => number): BaselineBar[] {
+  const byC0 = [...spans].sort((a, b) => a.c0 - b.c0);
+  const maxWidth = spans.reduce((m, s) => Math.max(m, s.c1 - s.c0), 0);
+  const firstAtOrAfter = (x: number): number => {
+    let a = 0;
+    let b = byC0.length;
+    while (a < b) {
+      const m = (a + b) >> 1;
+      if (byC0[m]!.c0 < x) a = m + 1;
+      else b = m;
+    }
+    return a;
+  };
   const out: BaselineBar[] = [];
   for (const s of spans) {
     const atLo = Math.abs(s.lo - base) <= tol;
@@ -210,24 +236,26 @@ function barColumns(spans: Span[], base: number, tol: number, value: (p: number)
     if (atLo && atHi) continue; // zero-length bar
     const side = atLo ? 1 : -1;
     const width = s.c1 - s.c0;
-    const column = spans.filter((t) => {
+    const column: Span[] = [];
+    for (let i = firstAtOrAfter(s.c0 - maxWidth); i < byC0.length && byC0[i]!.c0 < s.c1; i++) {
+      const t = byC0[i]!;
       const overlap = Math.min(s.c1, t.c1) - Math.max(s.c0, t.c0);
-      if (overlap < 0.5 * Math.min(width, t.c1 - t.c0)) return false;
-      return side > 0 ? t.lo >= base - tol : t.hi <= base + tol;
-    });
-    // A column is reported once, by its first bar on the baseline.
-    const first = column.find((t) => Math.abs((side > 0 ? t.lo : t.hi) - base) <= tol);
-    if (first && first.item !== s.item) continue;
+      if (overlap < 0.5 * Math.min(width, t.c1 - t.c0)) continue;
+      if (side > 0 ? t.lo >= base - tol : t.hi <= base + tol) column.push(t);
+    }
+    // A column is reported once, by its bar on the baseline painted first.
+    const onBase = column.filter((t) => Math.abs((side > 0 ? t.lo : t.hi) - base) <= tol);
+    if (onBase.some((t) => t.item < s.item)) continue;
     const far = side > 0 ? Math.max(...column.map((t) => t.hi)) : Math.min(...column.map((t) => t.lo));
-    out.push({ items: column.map((t) => t.item), value: value(far), length: Math.abs(far - base) });
+    out.push({ items: column.map((t) => t.item).sort((a, b) => a - b), value: value(far), length: Math.abs(far - base) });
   }
   return out;
 }
 
 /** Areas are filled from the edge of their common extent with the lower value. */
 function areaBaseline(spans: Span[], value: (p: number) => number): number | null {
-  const lo = Math.min(...spans.map((s) => s.lo));
-  const hi = Math.max(...spans.map((s) => s.hi));
+  const lo = spans.reduce((m, s) => Math.min(m, s.lo), Infinity);
+  const hi = spans.reduce((m, s) => Math.max(m, s.hi), -Infinity);
   const vl = value(lo);
   const vh = value(hi);
   if (!Number.isFinite(vl) || !Number.isFinite(vh)) return null;

@@ -52,6 +52,18 @@ export const MAX_CATEGORICAL_COLORS = 22;
 
 const NUMERIC = /^[\s+\-−]*[\d.,]+\s*%?\s*$/;
 
+/**
+ * The colour with the opacity it is painted with (paint opacity × element and
+ * group opacity, as the scene records it) folded into its alpha.
+ */
+function withPaintOpacity(chart: Chart, c: Rgba, item: number | undefined, stroke: boolean): Rgba {
+  const it = item === undefined ? undefined : chart.scene.items[item];
+  if (!it || it.kind !== 'shape') return c;
+  const paint = stroke || it.fill.kind === 'none' ? it.stroke : it.fill;
+  const opacity = Number.isFinite(paint.opacity) ? Math.min(1, Math.max(0, paint.opacity)) : 1;
+  return opacity < 1 ? { ...c, alpha: c.alpha * opacity } : c;
+}
+
 function legendName(chart: Chart, c: Rgba): string | null {
   const hex = formatHex(c);
   const e = chart.legend.find((l) => l.color && l.name && formatHex(l.color) === hex);
@@ -69,11 +81,13 @@ export function measurePalette(chart: Chart): PaletteMeasure {
   if (chart.kind !== 'heatmap') {
     if (chart.pie && chart.pie.wedges.length > 0) {
       for (const w of chart.pie.wedges) {
-        if (w.color) raw.push({ name: w.label ?? legendName(chart, w.color), color: w.color, markClass: 'large', source: 'wedge', items: [w.item] });
+        if (w.color) raw.push({ name: w.label ?? legendName(chart, w.color), color: withPaintOpacity(chart, w.color, w.item, false), markClass: 'large', source: 'wedge', items: [w.item] });
       }
     } else {
       for (const s of chart.series) {
-        if (s.color && s.markType !== 'mark/cell') raw.push({ name: s.name, color: s.color, markClass: markClassOf(s.markType), source: 'series', items: s.items });
+        if (s.color && s.markType !== 'mark/cell') {
+          raw.push({ name: s.name, color: withPaintOpacity(chart, s.color, s.items[0], s.markType === 'mark/line'), markClass: markClassOf(s.markType), source: 'series', items: s.items });
+        }
       }
     }
     if (raw.length === 0) {
