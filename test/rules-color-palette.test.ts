@@ -52,6 +52,12 @@ describe('color.cvd-confusable', () => {
     expect(check(tooManyCategories, u)).toEqual([]);
   });
 
+  it('translucent colours are compared as seen over the background', () => {
+    // source: Porter & Duff (1984) "over" compositing: 0.3 × #ff0000 over white = (255, 178.5, 178.5) → #ffb3b3
+    const u = understand(barChart({ series: [[10, 20, 15], [12, 18, 11]], colors: ['rgba(255,0,0,0.3)', 'rgba(0,128,0,0.3)'], lo: 0, hi: 25, ticks: [0, 5, 10, 15, 20, 25] }));
+    expect(u.measures.palette.entries.map((e) => e.hex)).toEqual(['#ffb3b3', '#b3d9b3']);
+  });
+
   it('pie wedge colours are checked too', () => {
     const u = understandPie(pieChart({ shares: [30, 30, 40], colors: ['#dd3322', '#559922', '#0072b2'] }));
     expect(u.measures.palette.entries.every((e) => e.source === 'wedge')).toBe(true);
