@@ -50,6 +50,24 @@ export function classifyChart(scene: Scene): Chart {
   const pool0 = shapes.filter((s) => !pageSet.has(s.index) && !legendItems.has(s.index));
   const vectorBar = pie ? null : findVectorColorBar(pool0, texts);
   const barItems = new Set(vectorBar?.items ?? []);
+  if (vectorBar) {
+    // Tick marks and labels along a colour bar are its scale, not legend entries.
+    const barBox = unionAll(vectorBar.items.map((i) => items[i]!.bbox))!;
+    const reach = expand(barBox, 2 * Math.max(...texts.map((t) => t.fontSize), 8));
+    const keep = legend.filter((e) => {
+      const b = items[e.swatch]!.bbox;
+      return !(b.x < reach.x + reach.width && b.x + b.width > reach.x && b.y < reach.y + reach.height && b.y + b.height > reach.y);
+    });
+    if (keep.length !== legend.length) {
+      for (const e of legend) {
+        if (keep.includes(e)) continue;
+        legendItems.delete(e.swatch);
+        if (e.label !== null) legendItems.delete(e.label);
+      }
+      legend = keep.length >= 2 ? keep : [];
+      if (legend.length === 0) legendItems.clear();
+    }
+  }
   const plotPool = pool0.filter((s) => !barItems.has(s.index));
   const plotEvidence = pie ? null : findPlotArea(plotPool, scene.viewBox);
   let plotArea: Box | null = plotEvidence?.box ?? null;
@@ -252,7 +270,7 @@ export function classifyChart(scene: Scene): Chart {
     pie,
     colorBar,
     extrusions,
-    title: scene.title ?? titleText(texts, roles),
+    title: titleText(texts, roles) ?? scene.title,
   };
   return chart;
 }

@@ -16,6 +16,7 @@ export function findLegend(items: readonly SceneItem[], exclude: Set<number>): {
     const cy = centerY(t.bbox);
     let best: ShapeItem | null = null;
     let bestGap = Infinity;
+    const near: ShapeItem[] = [];
     for (const s of shapes) {
       if (used.has(s.index)) continue;
       const b = s.bbox;
@@ -27,12 +28,20 @@ export function findLegend(items: readonly SceneItem[], exclude: Set<number>): {
       if (Math.abs(centerY(b) - cy) > 0.6 * fs) continue;
       const paint = s.fill.kind !== 'none' ? s.fill : s.stroke;
       if (!paint.color) continue;
+      near.push(s);
       if (gap < bestGap) {
         bestGap = gap;
         best = s;
       }
     }
     if (!best) continue;
+    // A key drawn over a key background: the topmost shape over the nearest one is the swatch.
+    const b0 = best.bbox;
+    for (const s of near) {
+      const b = s.bbox;
+      const overlaps = b.x < b0.x + b0.width && b.x + b.width > b0.x && b.y < b0.y + b0.height && b.y + b.height > b0.y;
+      if (overlaps && s.index > best.index) best = s;
+    }
     used.add(best.index);
     const paint = best.fill.kind !== 'none' ? best.fill : best.stroke;
     entries.push({ swatch: best.index, label: t.index, name: t.content, color: paint.color });

@@ -181,17 +181,17 @@ function barSeries(
   };
 
   // Stacked or grouped: bars of different series at one category position.
+  // Sorted sweep: bars whose centres are within a quarter of a bar width share a slot (linear after sorting).
   const slots = new Map<number, ShapeItem[]>();
-  const slotKey = (b: ShapeItem): number => {
+  const byAlong = [...bars].sort((a, b) => along(boxOf(a)) - along(boxOf(b)));
+  let slotKey = NaN;
+  for (const b of byAlong) {
     const c = along(boxOf(b));
-    for (const k of slots.keys()) if (Math.abs(k - c) <= 0.25 * (orientation === 'vertical' ? boxOf(b).width : boxOf(b).height)) return k;
-    return c;
-  };
-  for (const b of bars) {
-    const k = slotKey(b);
-    const arr = slots.get(k) ?? [];
+    const size = orientation === 'vertical' ? boxOf(b).width : boxOf(b).height;
+    if (!(Math.abs(c - slotKey) <= 0.25 * size)) slotKey = c;
+    const arr = slots.get(slotKey) ?? [];
     arr.push(b);
-    slots.set(k, arr);
+    slots.set(slotKey, arr);
   }
   const multiSeries = groups.size > 1;
   const stacked = multiSeries && [...slots.values()].filter((s) => s.length > 1).length >= Math.max(1, 0.5 * slots.size);
