@@ -219,3 +219,10 @@ describe('digit widths', () => {
     expect(digitFeatures(sans(10))).toEqual({ tnum: false, pnum: false, lnum: false, onum: false });
   });
 });
+
+describe('digit widths input checks', () => {
+  it('refuses font descriptions it cannot use', () => {
+    expect(() => digitAdvances({ ...sans(10), family: [3 as never] })).toThrow(MeasureTextError);
+    expect(() => hasTabularDigits({ ...sans(10), size: Number.NaN })).toThrow(/size/);
+  });
+});

@@ -6,17 +6,12 @@
  * DejaVu's default digits are tabular in all three families, and DejaVu has
  * no `tnum` / `pnum` features: its digits cannot be switched.
  */
-import { faceMetrics } from './face-metrics.js';
+import { faceMetrics, type FaceMetrics } from './face-metrics.js';
 import { matchFontFace } from './font-files.js';
-import { MeasureTextError, type FontSpec } from './measure-text.js';
+import { checkFontSpec, type FontSpec } from './measure-text.js';
 
-function metricsFor(font: FontSpec) {
-  if (font === null || typeof font !== 'object' || !Array.isArray(font.family)) {
-    throw new MeasureTextError('font must be an object with a family array');
-  }
-  if (typeof font.size !== 'number' || !Number.isFinite(font.size) || font.size < 0) {
-    throw new MeasureTextError(`font.size must be a finite number ≥ 0, got ${String(font.size)}`);
-  }
+function metricsFor(font: FontSpec): FaceMetrics {
+  checkFontSpec(font);
   return faceMetrics(matchFontFace(font.family, font.weight, font.style).face.id);
 }
 

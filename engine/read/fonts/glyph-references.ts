@@ -82,7 +82,7 @@ export function buildReferences(faces: readonly FaceId[], characters: readonly s
         char,
         face: id,
         advance: (glyph.advanceWidth ?? 0) / em,
-        box: { xMin: shape.box.xMin / em, yMin: shape.box.yMin / em, xMax: shape.box.xMax / em, yMax: shape.box.yMax / em },
+        box: Object.freeze({ xMin: shape.box.xMin / em, yMin: shape.box.yMin / em, xMax: shape.box.xMax / em, yMax: shape.box.yMax / em }),
         shape,
       });
     }

@@ -7,7 +7,7 @@
  * the unit of `font.size` (px in SVG user space).
  */
 import { faceMetrics, kerningScriptOf, type FaceMetrics } from './face-metrics.js';
-import { matchFontFace, type FaceId, type FontStyle } from './font-files.js';
+import { BOLD_THRESHOLD, matchFontFace, type FaceId, type FaceMatch, type FontStyle } from './font-files.js';
 
 /** A font as CSS describes it. */
 export interface FontSpec {
@@ -62,6 +62,19 @@ interface RunWidth {
 
 const STRING_CACHE_LIMIT = 20_000;
 const stringCache = new Map<string, RunWidth>();
+const matchCache = new Map<string, FaceMatch>();
+
+/** matchFontFace, remembered per family list, boldness and style. */
+function cachedMatch(font: FontSpec): FaceMatch {
+  const key = `${font.weight >= BOLD_THRESHOLD ? 'b' : 'r'}${font.style}|${font.family.join('\u0000')}`;
+  let m = matchCache.get(key);
+  if (m === undefined) {
+    m = matchFontFace(font.family, font.weight, font.style);
+    if (matchCache.size >= STRING_CACHE_LIMIT) matchCache.clear();
+    matchCache.set(key, m);
+  }
+  return m;
+}
 
 function measureUnits(m: FaceMetrics, text: string, kerning: boolean, ligatures: boolean): RunWidth {
   const key = `${m.id}|${kerning ? 1 : 0}${ligatures ? 1 : 0}|${text}`;
@@ -104,9 +117,12 @@ function measureUnits(m: FaceMetrics, text: string, kerning: boolean, ligatures:
   return result;
 }
 
-function checkFont(font: FontSpec): void {
+/** Throws MeasureTextError unless `font` is a usable FontSpec. */
+export function checkFontSpec(font: FontSpec): void {
   if (font === null || typeof font !== 'object') throw new MeasureTextError('font must be an object');
-  if (!Array.isArray(font.family)) throw new MeasureTextError('font.family must be an array of family names');
+  if (!Array.isArray(font.family) || !font.family.every((f) => typeof f === 'string')) {
+    throw new MeasureTextError('font.family must be an array of family names');
+  }
   if (typeof font.size !== 'number' || !Number.isFinite(font.size) || font.size < 0) {
     throw new MeasureTextError(`font.size must be a finite number ≥ 0, got ${String(font.size)}`);
   }
@@ -121,10 +137,10 @@ function checkFont(font: FontSpec): void {
 /** Measures a string set in the bundled face that stands in for `font`. */
 export function measureText(text: string, font: FontSpec, options: MeasureOptions = {}): TextMetrics {
   if (typeof text !== 'string') throw new MeasureTextError('text must be a string');
-  checkFont(font);
+  checkFontSpec(font);
   const letterSpacing = options.letterSpacing ?? 0;
   if (!Number.isFinite(letterSpacing)) throw new MeasureTextError('letterSpacing must be a finite number');
-  const match = matchFontFace(font.family, font.weight, font.style);
+  const match = cachedMatch(font);
   const m = faceMetrics(match.face.id);
   const kerning = options.kerning ?? true;
   const ligatures = (options.ligatures ?? true) && letterSpacing === 0;

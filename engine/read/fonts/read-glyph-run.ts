@@ -2,22 +2,32 @@
  * Reads a run of glyph outlines (text exported as paths) back into a string.
  *
  * Each glyph comes with the matrix that places its outline in the world
- * (SVG user space, y down). The run's baseline direction is taken from the
- * first glyph's matrix, so rotated text reads as well as horizontal text.
- * Glyphs are recognised one by one (recognize-glyph.ts); the run's font size
- * is then estimated from the heights of the recognised glyphs (a median, so a
- * few misreadings do not move it) and used to choose among look-alikes that
- * differ mainly in size or height above the baseline (l / I, o / O, x / ×,
- * - / −). Glyphs are ordered along the baseline, split into lines across it,
- * and a space is put where the gap between two glyphs exceeds the advance of
- * the first by a share of the font size. Smaller glyphs raised above the
- * baseline (as superscripts are set) become superscript characters where
- * Unicode has them (digits, minus, plus).
+ * (SVG user space, y down); the matrix is expected to map the glyph's own
+ * origin, on the baseline at the pen position, as fonts and outline-text
+ * exports define it. The run's baseline direction is that of the first
+ * glyph's matrix, so rotated text reads as well as horizontal text.
  *
- * The matrix is expected to map the glyph's own origin, on the baseline at
- * the pen position, as fonts and outline-text exports define it. When the
- * outlines are instead already placed (their origin far from their ink), the
- * run is read from ink boxes alone: no baseline or advance information.
+ * 1. Each outline is matched alone (recognize-glyph.ts); candidates close to
+ *    the best one are kept as look-alikes.
+ * 2. The em size is the one most glyphs agree on (each look-alike proposes
+ *    observed height / reference height), so a few glyphs read in the wrong
+ *    case cannot pull it.
+ * 3. Glyphs are split into lines across the baseline and ordered along it.
+ * 4. Among look-alikes the one whose height and place above the baseline fit
+ *    the em size best is chosen (l / I, o / O, x / ×, - / −), compared within
+ *    the face most glyphs matched; then letters are preferred among letters
+ *    and digits among digits of the same word (0 / O, 1 / l).
+ * 5. A space is put where the pen step exceeds the first glyph's advance by
+ *    a share of the em. Advances are the references', stretched by the
+ *    median ratio of the run's steps to them (so narrower or wider faces
+ *    than the references work); in a monospaced run the common step is the
+ *    advance.
+ * 6. Glyphs set smaller and raised above the line become superscript
+ *    characters where Unicode has them (digits, minus, plus).
+ *
+ * When the outlines are already placed in the world (their origin far from
+ * their ink), there is no baseline or pen position: the run is read from ink
+ * boxes alone, along the first matrix's x axis.
  */
 import { analyseGlyph, MATCH_THRESHOLD, type GlyphAnalysis, type GlyphCandidate } from './recognize-glyph.js';
 import type { Box } from './glyph-outline.js';
@@ -238,7 +248,7 @@ export function readGlyphRun(glyphs: readonly PlacedGlyph[], options: ReadGlyphR
   }
 
   // Baseline mode: every glyph's origin lies near its own ink.
-  const analysed: { index: number; g: PlacedGlyph; yUp: boolean; box: Box }[] = [];
+  const analysed: { index: number; g: PlacedGlyph; yUp: boolean }[] = [];
   let baselineMode = true;
   for (const r of raw) {
     const a = analyseGlyph(r.g.pathData, { yUp: r.yUp, baselineAtZero: true });
@@ -248,7 +258,7 @@ export function readGlyphRun(glyphs: readonly PlacedGlyph[], options: ReadGlyphR
     const dx = Math.max(b.xMin, 0, -b.xMax);
     const dy = Math.max(b.yMin, 0, -b.yMax);
     if (Math.hypot(dx, dy) > ORIGIN_REACH * size) baselineMode = false;
-    analysed.push({ ...r, box: b });
+    analysed.push(r);
   }
 
   const work: Work[] = [];

@@ -32,7 +32,7 @@ const W_BASELINE = 0.06;
 const SHORTLIST = 28;
 /** Distinct characters reported per glyph. */
 const MAX_CANDIDATES = 8;
-const CACHE_LIMIT = 50_000;
+const CACHE_LIMIT = 20_000;
 
 export interface RecognizeOptions {
   /**
@@ -75,10 +75,11 @@ export interface GlyphMatch {
 }
 
 /** What a glyph outline is, before any acceptance threshold. */
+/** Shared and cached: frozen, do not modify. */
 export interface GlyphAnalysis {
-  bbox: Box;
-  contours: number;
-  candidates: GlyphCandidate[];
+  readonly bbox: Readonly<Box>;
+  readonly contours: number;
+  readonly candidates: readonly Readonly<GlyphCandidate>[];
 }
 
 interface ShortEntry {
@@ -86,7 +87,9 @@ interface ShortEntry {
   chamfer: number;
 }
 
-const analysisCache = new Map<string, GlyphAnalysis | null>();
+/** Per option combination, analyses keyed by the path data itself (no copy of the string). */
+const analysisCache = new Map<string, Map<string, GlyphAnalysis | null>>();
+let analysisCount = 0;
 const shapeCache = new Map<string, ShortEntry[]>();
 
 function remember<V>(map: Map<string, V>, key: string, value: V): V {
@@ -132,13 +135,23 @@ export function analyseGlyph(pathData: string, options: RecognizeOptions = {}): 
   if (typeof pathData !== 'string') return null;
   const yUp = options.yUp ?? true;
   const baseline = options.baselineAtZero ?? true;
-  const cacheKey = `${yUp ? 'u' : 'd'}${baseline ? 'b' : 'f'}|${pathData}`;
-  const hit = analysisCache.get(cacheKey);
+  const optionKey = `${yUp ? 'u' : 'd'}${baseline ? 'b' : 'f'}`;
+  let cache = analysisCache.get(optionKey);
+  if (cache === undefined) analysisCache.set(optionKey, (cache = new Map()));
+  const hit = cache.get(pathData);
   if (hit !== undefined) return hit;
+  if (analysisCount >= CACHE_LIMIT) {
+    for (const m of analysisCache.values()) m.clear();
+    analysisCount = 0;
+  }
+  analysisCount++;
 
   const contours = flattenPathData(pathData, !yUp);
   const shape = contours === null ? null : describeShape(contours);
-  if (shape === null) return remember(analysisCache, cacheKey, null);
+  if (shape === null) {
+    cache.set(pathData, null);
+    return null;
+  }
 
   const refs = referenceGlyphs();
   const best = new Map<string, GlyphCandidate>();
@@ -151,7 +164,14 @@ export function analyseGlyph(pathData: string, options: RecognizeOptions = {}): 
     }
   }
   const candidates = [...best.values()].sort((a, b) => a.distance - b.distance).slice(0, MAX_CANDIDATES);
-  return remember(analysisCache, cacheKey, { bbox: shape.box, contours: shape.contours, candidates });
+  for (const c of candidates) Object.freeze(c);
+  const result: GlyphAnalysis = Object.freeze({
+    bbox: Object.freeze({ ...shape.box }),
+    contours: shape.contours,
+    candidates: Object.freeze(candidates),
+  });
+  cache.set(pathData, result);
+  return result;
 }
 
 /**
@@ -168,8 +188,8 @@ export function recognizeGlyph(pathData: string, options: RecognizeOptions = {})
     distance: top.distance,
     confidence: maxDistance > 0 ? Math.max(0, 1 - top.distance / maxDistance) : 1,
     face: top.face,
-    bbox: a.bbox,
+    bbox: { ...a.bbox },
     contours: a.contours,
-    candidates: a.candidates,
+    candidates: a.candidates.map((c) => ({ ...c, box: { ...c.box } })),
   };
 }
