@@ -16,7 +16,7 @@ import type { Segment } from './geometry/segments.js';
 import { flattenSegments } from './geometry/flatten.js';
 import { buildCascade, computeStyle, type Cascade, type ComputedStyle } from './style/index.js';
 import { measureText } from './fonts/measure-text.js';
-import { readGlyphRun } from './pending-shims.js';
+import { readGlyphRun } from './fonts/read-glyph-run.js';
 import { NO_PAINT, parseUrlReference, resolvePaint, type PaintContext } from './paint.js';
 import type { Box, ImageItem, Paint, Scene, SceneItem, ShapeItem, SourceRef, TextItem } from './scene.js';
 import type { XmlDocument, XmlElement } from './xml-tree.js';
@@ -491,26 +491,27 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
       if (path.attributes.transform) m = multiply(m, parseTransform(path.attributes.transform).matrix);
       return { pathData: path.attributes.d!, matrix: m as [number, number, number, number, number, number] };
     });
-    const run = readGlyphRun(glyphs);
-    if (!run || run.confidence < 0.5 || run.text.trim() === '') return false;
+    let run;
+    try {
+      run = readGlyphRun(glyphs);
+    } catch {
+      return false;
+    }
+    if (!run.bbox || run.confidence < 0.5 || run.unrecognised > glyphs.length / 2 || run.text.trim() === '') return false;
     const pc = paintCtx(style);
     const fill = resolvePaint(style.fill, ctx.opacity * style.fillOpacity, pc);
     const first = glyphs[0]!.matrix;
-    // Place the text item at the run's start on its baseline (glyph origin of the first glyph).
-    const origin = { x: first[4], y: first[5] };
-    const rot = (Math.atan2(first[1], first[0]) * 180) / Math.PI;
-    const flip = first[3] < 0 ? -1 : 1;
-    const baseM: Matrix = multiply(translation(origin.x, origin.y), rotationMatrix(flip < 0 ? -rot : rot));
+    // The text item starts at the first glyph's origin on the baseline and runs along the reading direction.
+    const baseM: Matrix = multiply(translation(first[4], first[5]), rotationMatrix(run.angle));
+    const fontSize = run.fontSize ?? (Math.abs(run.angle) > 45 ? run.bbox.width : run.bbox.height);
+    const width = Math.abs(run.angle) > 45 ? run.bbox.height : run.bbox.width;
     const before = items.length;
-    emitText(g, { ...ctx, matrix: baseM }, run.text, 0, 0, { ...style, textAnchor: 'start', dominantBaseline: 'auto' }, fill, true, {
-      width: run.width,
-      fontSize: run.fontSize,
+    emitText(g, { ...ctx, matrix: baseM }, run.text.replace(/\n/g, ' '), 0, 0, { ...style, textAnchor: 'start', dominantBaseline: 'auto' }, fill, true, {
+      width,
+      fontSize,
     });
     const item = items[before] as TextItem | undefined;
-    if (item) {
-      item.bbox = run.bbox;
-      item.fontFamily = run.fontFamily ? [run.fontFamily] : item.fontFamily;
-    }
+    if (item) item.bbox = run.bbox;
     return true;
   };
 
