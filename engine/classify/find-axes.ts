@@ -88,7 +88,7 @@ export function findLabelGroups(texts: TextItem[], excluded: Set<number>): Label
     if (new Set(distinct.map((t) => Math.round(t.x))).size === 1) continue; // already a column above
     const labels = distinct.map((t) => ({ text: t.content, position: centerY(t.bbox) }));
     const scale = safeInfer(labels);
-    if (scale && scale.scale !== 'band') {
+    if (scale && (scale.scale !== 'band' || distinct.every((t) => t.fromGlyphs))) {
       groups.push({ direction: 'vertical', texts: distinct, across: median(distinct.map((t) => t.bbox.x + t.bbox.width)), scale });
     }
   }

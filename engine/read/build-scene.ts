@@ -478,7 +478,7 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
       if (c.name !== 'use') return false;
       const href = c.attributes.href ?? c.attributes['xlink:href'];
       const target = href?.startsWith('#') ? byId.get(href.slice(1)) : undefined;
-      if (!target || target.name !== 'path' || !target.attributes.d) return false;
+      if (!target || target.name !== 'path') return false;
       uses.push({ use: c, path: target });
     }
     if (uses.length === 0 || uses.length > 400) return false;
@@ -489,7 +489,7 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
       if (use.attributes.transform) m = multiply(m, parseTransform(use.attributes.transform).matrix);
       m = multiply(m, translation(num(use.attributes.x, 0), num(use.attributes.y, 0)));
       if (path.attributes.transform) m = multiply(m, parseTransform(path.attributes.transform).matrix);
-      return { pathData: path.attributes.d!, matrix: m as [number, number, number, number, number, number] };
+      return { pathData: path.attributes.d ?? '', matrix: m as [number, number, number, number, number, number] };
     });
     let run;
     try {
