@@ -109,6 +109,8 @@ const CONTEXT_REACH = 2;
 /** A run is monospaced when this share of its pen steps lie within MONO_TOLERANCE of their median. */
 const MONO_SHARE = 0.7;
 const MONO_TOLERANCE = 0.03;
+/** Steps of one letter case needed for a width ratio of its own. */
+const MIN_CLASS_STEPS = 3;
 /** Bounds of the run's pen-step to reference-advance ratio. */
 const MIN_WIDTH_FACTOR = 0.7;
 const MAX_WIDTH_FACTOR = 1.4;
@@ -118,6 +120,8 @@ const W_FIT = 0.5;
 const MIN_VOTING_HEIGHT = 0.3;
 /** Glyphs whose origin lies further than this many glyph sizes from their ink are taken as already placed. */
 const ORIGIN_REACH = 4;
+/** A space also needs this much clear ink gap (share of the font size) between its neighbours. */
+const MIN_INK_GAP = 0.1;
 /** Without advances, a space needs an ink gap of this share of the font size. */
 const INK_SPACE_GAP = 0.27;
 /** Baseline offsets (share of the font size) beyond which glyphs are on another line. */
@@ -176,6 +180,14 @@ function lookalikes(a: GlyphAnalysis, maxDistance: number): GlyphCandidate[] {
   const top = a.candidates[0];
   if (top === undefined || top.distance > maxDistance) return [];
   return a.candidates.filter((c) => c.distance <= top.distance + LOOKALIKE_MARGIN && c.distance <= maxDistance);
+}
+
+type LetterCase = 'upper' | 'lower' | 'other';
+
+function caseOf(char: string): LetterCase {
+  if (/\p{Lu}/u.test(char)) return 'upper';
+  if (/\p{Ll}/u.test(char)) return 'lower';
+  return 'other';
 }
 
 function kindOf(char: string | undefined): 'letter' | 'digit' | 'other' {
@@ -383,16 +395,26 @@ export function readGlyphRun(glyphs: readonly PlacedGlyph[], options: ReadGlyphR
   // Otherwise each glyph advances by its reference's advance, stretched by
   // the median ratio of the run's steps to those advances (a narrower or
   // wider face than the references); steps that hold a space are too few to
-  // move the median.
-  const ratios = steps.filter((s) => s.char.advance >= 0.25).map((s) => s.step / s.char.advance);
-  const widthFactor = Math.min(MAX_WIDTH_FACTOR, Math.max(MIN_WIDTH_FACTOR, median(ratios) ?? 1));
-  const advanceOf = (c: GlyphCandidate): number => (monospaced ? commonStep! / widthFactor : c.advance);
+  // move the median. Capitals, small letters and the rest each get their own
+  // ratio where the run has enough of them, since faces differ in how wide
+  // their capitals are next to their small letters.
+  const clamp = (r: number): number => Math.min(MAX_WIDTH_FACTOR, Math.max(MIN_WIDTH_FACTOR, r));
+  const wide = steps.filter((s) => s.char.advance >= 0.25);
+  const overall = clamp(median(wide.map((s) => s.step / s.char.advance)) ?? 1);
+  const classFactor = new Map<LetterCase, number>();
+  for (const cls of ['upper', 'lower', 'other'] as const) {
+    const r = wide.filter((s) => caseOf(s.char.char) === cls).map((s) => s.step / s.char.advance);
+    classFactor.set(cls, r.length >= MIN_CLASS_STEPS ? clamp(median(r)!) : overall);
+  }
+  /** Expected pen step (em) after a glyph read as c. */
+  const advanceOf = (c: GlyphCandidate): number =>
+    monospaced ? commonStep! : c.advance * classFactor.get(caseOf(c.char))!;
 
   // Is there a space between two neighbours on a line?
   const spaceBetween = (prev: Work, w: Work): boolean => {
     if (baselineMode && prev.chosen !== null && prev.em > 0) {
-      const penGap = w.along - (prev.along + advanceOf(prev.chosen) * prev.em * widthFactor);
-      return penGap > spaceGap * em;
+      const penGap = w.along - (prev.along + advanceOf(prev.chosen) * prev.em);
+      return penGap > spaceGap * em && w.inkAlong0 - prev.inkAlong1 > MIN_INK_GAP * em;
     }
     return w.inkAlong0 - prev.inkAlong1 > INK_SPACE_GAP * em;
   };
