@@ -254,6 +254,8 @@ describe('readGlyphRun', () => {
 
   it('reads text set in faces that are not among the references', () => {
     // source: chart labels of ../shared/real-charts/manifest.json, set with the fonts' own advances
+    // (these labels were also looked at while the run-level rules were chosen: a regression floor,
+    // not an unbiased accuracy estimate)
     const meta = JSON.parse(readFileSync(path.join(realCharts, 'manifest.json'), 'utf8')) as {
       title: string;
       axes: Record<string, { categories?: string[] } | null> | null;
@@ -262,7 +264,7 @@ describe('readGlyphRun', () => {
       .filter((s) => /^[\x20-\x7e]+$/.test(s));
     expect(labels.length).toBeGreaterThan(100);
     for (const [file, floor] of [
-      ['DejaVuSansCondensed.ttf', 0.8],
+      ['DejaVuSansCondensed.ttf', 0.95],
       ['DejaVuSerifCondensed.ttf', 0.95],
       ['DejaVuSansMono-Bold.ttf', 0.95],
       ['DejaVuSans-BoldOblique.ttf', 0.95],

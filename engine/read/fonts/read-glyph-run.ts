@@ -104,8 +104,8 @@ const LOOKALIKE_MARGIN = 0.05;
 const EM_TOLERANCE = 0.05;
 /** Penalty for a letter among digits or a digit among letters. */
 const W_CONTEXT = 0.02;
-/** Neighbours on each side that set a glyph's context. */
-const CONTEXT_REACH = 2;
+/** Characters that may stand between the digits of a number. */
+const NUMBER_PUNCTUATION = new Set([':', '.', ',', '-', '\u2212', '+', '%', '/', '\u00d7', '\u00b0', '(', ')']);
 /** A run is monospaced when this share of its pen steps lie within MONO_TOLERANCE of their median. */
 const MONO_SHARE = 0.7;
 const MONO_TOLERANCE = 0.03;
@@ -420,23 +420,32 @@ export function readGlyphRun(glyphs: readonly PlacedGlyph[], options: ReadGlyphR
   };
 
   // Pass 2: heights within the run's face, and the kind of character
-  // (letter or digit) of neighbours in the same word that are not themselves
-  // ambiguous.
+  // (letter or digit) of the other glyphs of the same word that are not
+  // themselves ambiguous. A word made only of ambiguous glyphs and number
+  // punctuation (00:00, 10) is read as a number: charts label with numbers
+  // far more often than with words like "Ol".
   for (const line of lines) {
     const wordOf: number[] = [];
     line.forEach((w, k) => wordOf.push(k === 0 ? 0 : wordOf[k - 1]! + (spaceBetween(line[k - 1]!, w) ? 1 : 0)));
     const kinds = line.map((w) => {
       const set = new Set(lookalikes(w.analysis, maxDistance).map((c) => kindOf(c.char)));
-      return set.size === 1 ? [...set][0]! : 'other';
+      if (set.size === 1) return [...set][0]!;
+      return set.has('digit') ? 'digit-or-letter' : 'mixed';
     });
     line.forEach((w, k) => {
       let letters = 0, digits = 0;
-      for (let j = Math.max(0, k - CONTEXT_REACH); j <= Math.min(line.length - 1, k + CONTEXT_REACH); j++) {
-        if (j === k || wordOf[j] !== wordOf[k]) continue;
-        if (kinds[j] === 'letter') letters++;
-        else if (kinds[j] === 'digit') digits++;
+      let numeric = true;
+      for (let j = 0; j < line.length; j++) {
+        if (wordOf[j] !== wordOf[k]) continue;
+        const kind = kinds[j];
+        const char = line[j]!.chosen?.char;
+        if (kind === 'mixed' || kind === 'letter' || (kind === 'other' && !NUMBER_PUNCTUATION.has(char ?? ''))) numeric = false;
+        if (j === k) continue;
+        if (kind === 'letter') letters++;
+        else if (kind === 'digit') digits++;
       }
-      const context = letters > digits ? 'letter' : digits > letters ? 'digit' : null;
+      const context =
+        letters > digits ? 'letter' : digits > letters ? 'digit' : letters === 0 && numeric ? 'digit' : null;
       let bestScore = Infinity;
       for (const c of lookalikes(w.analysis, maxDistance)) {
         const kind = kindOf(c.char);
