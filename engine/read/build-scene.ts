@@ -253,6 +253,10 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
     const polylines = flat.polylines;
     const geomBox = boundsOfFlat(polylines);
     if (!geomBox) return;
+    if (!saneBox(geomBox)) {
+      warn(`<${el.name}>: coordinates out of range (beyond ±${MAX_COORD}); element skipped`, el);
+      return;
+    }
     const pad = strokeWidth / 2;
     let bbox: Box | null = { x: geomBox.x - pad, y: geomBox.y - pad, width: geomBox.width + 2 * pad, height: geomBox.height + 2 * pad };
     // What is painted is what the clip lets through.
@@ -316,6 +320,10 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
     }
     if (lr === 0) return;
     const m = ctx.matrix;
+    if (!saneBox({ x: m[0] * lcx + m[4] - lr, y: m[3] * lcy + m[5] - lr, width: 2 * lr * Math.abs(m[0]), height: 2 * lr * Math.abs(m[0]) })) {
+      warn(`<circle>: coordinates out of range (beyond ±${MAX_COORD}); element skipped`, el);
+      return;
+    }
     const scale = Math.abs(m[0]);
     const cx = m[0] * lcx + m[4];
     const cy = m[3] * lcy + m[5];
@@ -407,6 +415,10 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
     ];
     const anchorPt = applyToPoint(m, { x: lx, y: baseline });
     const bbox = boundsOfPoints(corners);
+    if (!saneBox(bbox)) {
+      warn('<text>: position out of range; text skipped', el);
+      return;
+    }
     const item: TextItem = {
       kind: 'text',
       index: items.length,
@@ -449,6 +461,10 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
       applyToPoint(ctx.matrix, { x, y: y + h }),
       applyToPoint(ctx.matrix, { x: x + w, y: y + h }),
     ];
+    if (!saneBox(boundsOfPoints(pts))) {
+      warn('<image>: position out of range; image skipped', el);
+      return;
+    }
     const item: ImageItem = {
       kind: 'image',
       index: items.length,
@@ -554,6 +570,13 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
     ignore: rootRule,
     warnings,
   };
+}
+
+/** Coordinates beyond this (in world units) are treated as broken input: no chart is drawn that far out. */
+const MAX_COORD = 1e9;
+
+function saneBox(b: Box): boolean {
+  return [b.x, b.y, b.width, b.height].every(Number.isFinite) && Math.abs(b.x) <= MAX_COORD && Math.abs(b.y) <= MAX_COORD && b.x + b.width <= MAX_COORD && b.y + b.height <= MAX_COORD;
 }
 
 // --- helpers ---------------------------------------------------------------------------------------
