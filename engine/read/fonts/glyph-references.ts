@@ -17,6 +17,11 @@ export const REFERENCE_CHARACTERS: readonly string[] = Object.freeze([
   '\u20ac', // € euro sign
   '\u00a3', // £ pound sign
   '\u00b5', // µ micro sign
+  '\u00b1', // ± plus-minus sign
+  '\u2013', // – en dash (ranges)
+  '\u2014', // — em dash
+  '\u2264', // ≤
+  '\u2265', // ≥
   '\u2070', '\u00b9', '\u00b2', '\u00b3', '\u2074', '\u2075', '\u2076', '\u2077', '\u2078', '\u2079', // ⁰..⁹
   '\u207b', // ⁻ superscript minus
 ]);
@@ -107,4 +112,26 @@ export function referenceGlyph(char: string, face: FaceId): ReferenceGlyph | und
     for (const r of referenceGlyphs()) byFaceAndChar.set(`${r.face}|${r.char}`, r);
   }
   return byFaceAndChar.get(`${face}|${char}`);
+}
+
+let typical: Map<string, number> | undefined;
+
+/** Median advance (em) of a character over the proportional reference faces. */
+export function typicalAdvance(char: string): number | undefined {
+  if (typical === undefined) {
+    const byChar = new Map<string, number[]>();
+    for (const r of referenceGlyphs()) {
+      if (fontFace(r.face).generic === 'monospace') continue;
+      let list = byChar.get(r.char);
+      if (list === undefined) byChar.set(r.char, (list = []));
+      list.push(r.advance);
+    }
+    typical = new Map();
+    for (const [char, list] of byChar) {
+      list.sort((a, b) => a - b);
+      const mid = list.length >> 1;
+      typical.set(char, list.length % 2 === 1 ? list[mid]! : (list[mid - 1]! + list[mid]!) / 2);
+    }
+  }
+  return typical.get(char);
 }

@@ -31,7 +31,7 @@
  */
 import { analyseGlyph, MATCH_THRESHOLD, type GlyphAnalysis, type GlyphCandidate } from './recognize-glyph.js';
 import type { Box } from './glyph-outline.js';
-import { referenceGlyph } from './glyph-references.js';
+import { referenceGlyph, typicalAdvance } from './glyph-references.js';
 import type { FaceId } from './font-files.js';
 
 /** `[a, b, c, d, e, f]` as in SVG `matrix(a b c d e f)`: (x, y) ↦ (a·x + c·y + e, b·x + d·y + f). */
@@ -109,8 +109,12 @@ const NUMBER_PUNCTUATION = new Set([':', '.', ',', '-', '\u2212', '+', '%', '/',
 /** A run is monospaced when this share of its pen steps lie within MONO_TOLERANCE of their median. */
 const MONO_SHARE = 0.7;
 const MONO_TOLERANCE = 0.03;
+/** Outline distances up to this mean the glyph is from that very reference face. */
+const EXACT_FACE_DISTANCE = 0.01;
 /** Steps of one letter case needed for a width ratio of its own. */
 const MIN_CLASS_STEPS = 3;
+/** Steps whose ratio differs from the overall one by more than this share do not count for a case's ratio. */
+const CLASS_RATIO_SPREAD = 0.25;
 /** Bounds of the run's pen-step to reference-advance ratio. */
 const MIN_WIDTH_FACTOR = 0.7;
 const MAX_WIDTH_FACTOR = 1.4;
@@ -392,23 +396,32 @@ export function readGlyphRun(glyphs: readonly PlacedGlyph[], options: ReadGlyphR
     commonStep !== null &&
     steps.length >= 3 &&
     steps.filter((s) => Math.abs(s.step - commonStep) <= MONO_TOLERANCE * commonStep).length >= MONO_SHARE * steps.length;
-  // Otherwise each glyph advances by its reference's advance, stretched by
-  // the median ratio of the run's steps to those advances (a narrower or
-  // wider face than the references); steps that hold a space are too few to
-  // move the median. Capitals, small letters and the rest each get their own
-  // ratio where the run has enough of them, since faces differ in how wide
-  // their capitals are next to their small letters.
+  // Otherwise each glyph advances by a reference advance: its own face's
+  // when the outline matched that face almost exactly, else the median over
+  // the proportional reference faces (a near match in another face says
+  // little about the advance). That advance is stretched by the median ratio
+  // of the run's steps to those advances (a narrower or wider face than the
+  // references); steps that hold a space are too few to move the median.
+  // Capitals, small letters and the rest each get their own ratio where the
+  // run has enough of them, since faces differ in how wide their capitals
+  // are next to their small letters (steps far from the overall ratio,
+  // mostly those that hold a space, are left out of those).
+  const baseAdvance = (c: GlyphCandidate): number =>
+    c.distance <= EXACT_FACE_DISTANCE ? c.advance : (typicalAdvance(c.char) ?? c.advance);
   const clamp = (r: number): number => Math.min(MAX_WIDTH_FACTOR, Math.max(MIN_WIDTH_FACTOR, r));
-  const wide = steps.filter((s) => s.char.advance >= 0.25);
-  const overall = clamp(median(wide.map((s) => s.step / s.char.advance)) ?? 1);
+  const wide = steps.filter((s) => baseAdvance(s.char) >= 0.25);
+  const overall = clamp(median(wide.map((s) => s.step / baseAdvance(s.char))) ?? 1);
   const classFactor = new Map<LetterCase, number>();
   for (const cls of ['upper', 'lower', 'other'] as const) {
-    const r = wide.filter((s) => caseOf(s.char.char) === cls).map((s) => s.step / s.char.advance);
+    const r = wide
+      .filter((s) => caseOf(s.char.char) === cls)
+      .map((s) => s.step / baseAdvance(s.char))
+      .filter((ratio) => Math.abs(ratio / overall - 1) <= CLASS_RATIO_SPREAD);
     classFactor.set(cls, r.length >= MIN_CLASS_STEPS ? clamp(median(r)!) : overall);
   }
   /** Expected pen step (em) after a glyph read as c. */
   const advanceOf = (c: GlyphCandidate): number =>
-    monospaced ? commonStep! : c.advance * classFactor.get(caseOf(c.char))!;
+    monospaced ? commonStep! : baseAdvance(c) * classFactor.get(caseOf(c.char))!;
 
   // Is there a space between two neighbours on a line?
   const spaceBetween = (prev: Work, w: Work): boolean => {

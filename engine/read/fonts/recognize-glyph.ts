@@ -22,7 +22,7 @@ import { referenceGlyphs, type ReferenceGlyph } from './glyph-references.js';
 import type { FaceId } from './font-files.js';
 
 /** Distances above this are no match (normalised units: the glyph's larger side is 1). */
-export const MATCH_THRESHOLD = 0.1;
+export const MATCH_THRESHOLD = 0.13;
 
 /** Penalty weights of the final distance. */
 const W_CONTOURS = 0.02;
