@@ -5,10 +5,11 @@
  * data, usually in font units with the baseline at y = 0. The outline is
  * flattened, described scale-free (see glyph-shape.ts) and compared with the
  * outlines of the bundled DejaVu faces (glyph-references.ts): a coverage-grid
- * cut keeps the closest references, then a symmetric mean nearest-point
- * distance on evenly resampled contours, plus penalties for a different
- * contour count, aspect ratio and (when y = 0 is the baseline) position
- * relative to the baseline, ranks them. Ids, class names and comments of the
+ * cut keeps the closest references, then a symmetric mean distance between
+ * the evenly resampled contours (each outline's points to the other's
+ * polygon, with the outline's direction there weighed in), plus penalties
+ * for a different contour count, aspect ratio and (when y = 0 is the
+ * baseline) position relative to the baseline, ranks them. Ids, class names and comments of the
  * source are never looked at.
  *
  * Look-alikes whose outlines differ mainly in size (l / I, o / O, x / ×) stay
@@ -29,7 +30,7 @@ const W_CONTOURS = 0.02;
 const W_ASPECT = 0.03;
 const W_BASELINE = 0.06;
 /** References kept after the coverage-grid cut. */
-const SHORTLIST = 28;
+const SHORTLIST = 16;
 /** Distinct characters reported per glyph. */
 const MAX_CANDIDATES = 8;
 const CACHE_LIMIT = 20_000;
