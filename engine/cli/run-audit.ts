@@ -30,7 +30,7 @@ export async function runAudit(paths: string[], opts: Record<string, string | bo
   });
   const report = makeReport(reports);
   const out = typeof opts.out === 'string' ? opts.out : null;
-  const text = await formatReport(report, format, { color: !out && format === 'text' && useColor(process.stdout) });
+  const text = await formatReport(report, format, { color: !out && format === 'text' && useColor(process.stdout), config });
   if (out) await writeFileAtomic(out, text);
   else process.stdout.write(text);
   return failsAt(report.files, failOn) ? 1 : 0;
