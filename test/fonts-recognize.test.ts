@@ -285,6 +285,34 @@ describe('readGlyphRun', () => {
     expect(r.glyphs.map((g) => shuffled[g.index])).toEqual(glyphs.filter((g) => g.pathData !== ''));
   });
 
+  it('reads text on a slanted baseline, as rotated tick labels are set', () => {
+    const f = sansFont();
+    const k = 10 / f.unitsPerEm;
+    const c = Math.cos(-Math.PI / 4), s = Math.sin(-Math.PI / 4);
+    let pen = 0;
+    const glyphs: PlacedGlyph[] = [];
+    for (const ch of 'Riverside 2') {
+      const g = glyphOf(f, ch)!;
+      // translate(100 + pen·cos, 200 + pen·sin) rotate(−45) scale(k, −k)
+      glyphs.push({ pathData: outline(g), matrix: [c * k, s * k, s * k, -c * k, 100 + pen * k * c, 200 + pen * k * s] });
+      pen += g.advanceWidth;
+    }
+    const r = readGlyphRun(glyphs.reverse());
+    expect(r.text).toBe('Riverside 2');
+    expect(r.angle).toBeCloseTo(-45, 6);
+  });
+
+  it('lists size look-alikes among the candidates for a caller to weigh', () => {
+    const f = sansFont();
+    const l = recognizeGlyph(outline(glyphOf(f, 'l')!))!;
+    expect(l.char).toBe('l');
+    expect(l.candidates.map((c) => c.char)).toContain('I');
+    // source: DejaVu Sans 2.37 glyf table: l rises to 1556 units, I to 1493 (unitsPerEm 2048)
+    const I = l.candidates.find((c) => c.char === 'I')!;
+    expect(l.candidates[0]!.box.yMax).toBeCloseTo(1556 / 2048, 3);
+    expect(I.box.yMax).toBeCloseTo(1493 / 2048, 3);
+  });
+
   it('splits lines across the baseline', () => {
     const f = sansFont();
     const r = readGlyphRun([...layout(f, 'Total', 10, 0, 100), ...layout(f, '(kg)', 10, 0, 112)]);
