@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import Ajv from 'ajv';
+import { Ajv } from 'ajv';
 import type { Report } from '../engine/report/types.js';
 
 const root = resolve(import.meta.dirname, '..');
