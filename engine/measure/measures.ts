@@ -4,6 +4,9 @@
  */
 import type { Chart } from '../classify/chart.js';
 import { measureInk, type InkMeasure } from './ink.js';
+import { measureOverplot, type OverplotMeasure } from './overplot.js';
+import { buildSurfaceIndex } from './surfaces.js';
+import { measureTextLabels, type TextMeasure } from './text.js';
 import { measureBaseline, type BaselineMeasure } from './baseline.js';
 import { measureRamp, type RampMeasure } from './color-ramp.js';
 import { measureMarkContrast, type MarkContrast } from './mark-contrast.js';
@@ -17,6 +20,10 @@ export interface MeasureOptions {
 
 export interface Measures {
   ink: InkMeasure;
+  /** Text sizes at the display size, contrast, collisions, numeric columns and precision. */
+  text: TextMeasure;
+  /** Point marks overlapping other point marks. */
+  overplot: OverplotMeasure;
   /** Bars and areas: baseline and lie factor (null for other charts). */
   baseline: BaselineMeasure | null;
   /** Categorical colours and their pairwise ΔE00 under normal and simulated CVD vision. */
@@ -30,14 +37,16 @@ export interface Measures {
 }
 
 export function measureChart(chart: Chart, options: MeasureOptions = {}): Measures {
-  void options;
   const palette = measurePalette(chart);
+  const surfaces = buildSurfaceIndex(chart.scene);
   return {
-    ink: measureInk(chart),
+    ink: measureInk(chart, surfaces),
+    text: measureTextLabels(chart, surfaces, { displayWidth: options.displayWidth ?? null }),
+    overplot: measureOverplot(chart),
     baseline: measureBaseline(chart),
     palette,
     ramp: measureRamp(chart),
-    markContrast: measureMarkContrast(chart, palette.entries),
+    markContrast: measureMarkContrast(chart, palette.entries, surfaces),
     projection: measureProjection(chart),
   };
 }
