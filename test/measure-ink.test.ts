@@ -189,6 +189,12 @@ describe('geometric ink on small drawings', () => {
       exact: 5000,
     },
     {
+      name: 'rectangle half outside the drawing',
+      body: '<rect x="250" y="10" width="100" height="50" fill="#000"/>',
+      roles: ['mark/bar'],
+      exact: 2500,
+    },
+    {
       name: 'linear gradient from black to transparent',
       body: '<defs><linearGradient id="g" x1="0" y1="0" x2="1" y2="0"><stop offset="0" stop-color="#000"/><stop offset="1" stop-color="#000" stop-opacity="0"/></linearGradient></defs><rect x="10" y="10" width="200" height="100" fill="url(#g)"/>',
       roles: ['mark/area'],
@@ -214,6 +220,17 @@ describe('geometric ink on small drawings', () => {
     const white = measureInk(withRoles(svg('<rect width="300" height="200" fill="#fff"/><rect x="10" y="10" width="20" height="20" fill="#000"/>'), ['decoration/page', 'mark/bar']));
     expect(white.totals.decoration).toBe(0);
     expect(white.shares.data).toBe(1);
+  });
+
+  it('stays finite and quick on paths far outside the drawing', () => {
+    const body = '<line x1="-1e6" y1="50" x2="1e6" y2="50" stroke="#000" stroke-width="2"/><line x1="0" y1="100" x2="100" y2="100" stroke="#000" stroke-width="1000"/>';
+    const ink = measureInk(withRoles(svg(body), ['guide/grid', 'guide/grid']));
+    // computed: the second line, 100 long and 1000 wide with butt caps, covers x 0..100 of the drawing (100 × 200);
+    // the first shows 300 × 2 inside the drawing, less the 100 × 2 the second hides
+    expect(ink.byItem[0]).toBeCloseTo(400, 0);
+    expect(ink.byItem[1]).toBeCloseTo(20000, -1);
+    // source: resvg render of the same drawing
+    expect(Math.abs(ink.totals.total - rasterInkOf(svg(body), ['guide/grid', 'guide/grid'])) / ink.totals.total).toBeLessThan(0.03);
   });
 
   it('gives shares that sum to 1', () => {

@@ -112,24 +112,26 @@ export function clippedLength(polylines: readonly number[][], closed: readonly b
 }
 
 /**
- * Length of a stroke of width `width` inside the clip, counting a segment by
- * the mean of its two lines a quarter width to either side: a stroke running
- * along the clip's edge keeps half its width, one well inside keeps all of it.
+ * Length of a stroke of width `width` inside the clip: the area of each
+ * segment's band (a rectangle `width` wide around it) inside the clip, over
+ * the width. A stroke along the clip's edge keeps half its width; joins and
+ * caps are left out.
  */
 export function clippedStrokeLength(polylines: readonly number[][], closed: readonly boolean[], clip: Box, width: number): number {
-  const q = width / 4;
-  let total = 0;
+  if (!(width > 0)) return clippedLength(polylines, closed, clip);
+  const half = width / 2;
+  let area = 0;
   const seg = (ax: number, ay: number, bx: number, by: number) => {
     const len = Math.hypot(bx - ax, by - ay);
-    if (len === 0) return;
-    const nx = (-(by - ay) / len) * q;
-    const ny = ((bx - ax) / len) * q;
-    total += (segmentInside(ax + nx, ay + ny, bx + nx, by + ny, clip) + segmentInside(ax - nx, ay - ny, bx - nx, by - ny, clip)) / 2;
+    if (len === 0 || !Number.isFinite(len)) return;
+    const nx = (-(by - ay) / len) * half;
+    const ny = ((bx - ax) / len) * half;
+    area += clippedArea([[ax + nx, ay + ny, bx + nx, by + ny, bx - nx, by - ny, ax - nx, ay - ny]], clip);
   };
   polylines.forEach((p, k) => {
     const n = p.length / 2;
     for (let i = 0; i + 1 < n; i++) seg(p[2 * i]!, p[2 * i + 1]!, p[2 * i + 2]!, p[2 * i + 3]!);
     if (closed[k] && n > 2) seg(p[2 * n - 2]!, p[2 * n - 1]!, p[0]!, p[1]!);
   });
-  return total;
+  return area / width;
 }

@@ -14,8 +14,8 @@
  *   constant; `TEXT_INK_COVERAGE` (0.225 of advance × size, measured on
  *   DejaVu Sans) is only the fallback when no face can be read;
  * - images: area × opacity (their colours are not read).
- * Shapes cut by a clip rectangle count the area and outline length inside
- * it (a stroke along the clip edge keeps half its width).
+ * Shapes count the area and outline length inside their clip rectangle and
+ * the viewBox (a stroke along the edge keeps half its width).
  *
  * Overlaps: each part counts only as far as the items painted after it let
  * it show (measure/visibility.ts): a plot background under bars, a shadow
@@ -112,22 +112,30 @@ interface ItemInk {
   strength: number;
 }
 
-/** Area and outline length a shape paints, after its clip rectangle. */
-function paintedGeometry(it: ShapeItem): { area: number; length: number } {
-  if (it.clip === null) return { area: it.area, length: it.length };
+/** Area and outline length a shape paints: inside its clip rectangle and the drawing's viewBox. */
+function paintedGeometry(it: ShapeItem, viewBox: Box): { area: number; length: number } {
+  const c = it.clip ? intersect(it.clip, viewBox) : viewBox;
   const b = polylineBounds(it.polylines);
   const pad = it.strokeWidth / 2;
-  const c = it.clip;
-  if (b && b.x - pad >= c.x && b.y - pad >= c.y && b.x + b.width + pad <= c.x + c.width && b.y + b.height + pad <= c.y + c.height) {
+  if (!c || !b) return { area: 0, length: 0 };
+  if (b.x - pad >= c.x && b.y - pad >= c.y && b.x + b.width + pad <= c.x + c.width && b.y + b.height + pad <= c.y + c.height) {
     return { area: it.area, length: it.length };
   }
   return { area: it.area > 0 ? clippedArea(it.polylines, c) : 0, length: clippedStrokeLength(it.polylines, it.closed, c, it.strokeWidth) };
 }
 
-function itemInk(doc: XmlDocument, it: SceneItem, behind: Rgba, fillShown: number, strokeShown: number): ItemInk {
+function intersect(a: Box, b: Box): Box | null {
+  const x0 = Math.max(a.x, b.x);
+  const y0 = Math.max(a.y, b.y);
+  const x1 = Math.min(a.x + a.width, b.x + b.width);
+  const y1 = Math.min(a.y + a.height, b.y + b.height);
+  return x1 >= x0 && y1 >= y0 ? { x: x0, y: y0, width: x1 - x0, height: y1 - y0 } : null;
+}
+
+function itemInk(doc: XmlDocument, viewBox: Box, it: SceneItem, behind: Rgba, fillShown: number, strokeShown: number): ItemInk {
   switch (it.kind) {
     case 'shape': {
-      const { area: paintedArea, length } = paintedGeometry(it);
+      const { area: paintedArea, length } = paintedGeometry(it, viewBox);
       let ink = 0;
       let strength = NaN;
       const hasStroke = it.stroke.kind !== 'none' && it.strokeWidth > 0 && it.stroke.opacity > 0;
@@ -214,7 +222,7 @@ export function measureInk(chart: Chart, surfaces: SurfaceIndex = buildSurfaceIn
     }
     const p = probeOf(it);
     const behind = surfaces.colorBehind(p.x, p.y, i, { containing: p.box, skip: notSurface });
-    const r = itemInk(chart.scene.document, it, behind, vis.fill[i]!, vis.stroke[i]!);
+    const r = itemInk(chart.scene.document, chart.scene.viewBox, it, behind, vis.fill[i]!, vis.stroke[i]!);
     byItem[i] = Number.isFinite(r.ink) && r.ink > 0 ? r.ink : 0;
     strength[i] = r.strength;
   }

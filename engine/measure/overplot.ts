@@ -57,10 +57,21 @@ export function measureOverplot(chart: Chart): OverplotMeasure {
   let rMax = 0;
   for (const d of disks) rMax = Math.max(rMax, d.r);
   const cell = 2 * rMax;
-  const grid = new Map<string, number[]>();
-  const keyOf = (cx: number, cy: number) => `${cx},${cy}`;
+  let minX = Infinity;
+  let minY = Infinity;
+  let maxY = -Infinity;
+  for (const d of disks) {
+    minX = Math.min(minX, d.x);
+    minY = Math.min(minY, d.y);
+    maxY = Math.max(maxY, d.y);
+  }
+  // Cells are numbered column by column; one spare row keeps neighbours of the last row apart.
+  const rows = Math.floor((maxY - minY) / cell) + 3;
+  const cellOf = (x: number, y: number): [number, number] => [Math.floor((x - minX) / cell) + 1, Math.floor((y - minY) / cell) + 1];
+  const grid = new Map<number, number[]>();
   disks.forEach((d, k) => {
-    const key = keyOf(Math.floor(d.x / cell), Math.floor(d.y / cell));
+    const [cx, cy] = cellOf(d.x, d.y);
+    const key = cx * rows + cy;
     let list = grid.get(key);
     if (!list) grid.set(key, (list = []));
     list.push(k);
@@ -69,11 +80,10 @@ export function measureOverplot(chart: Chart): OverplotMeasure {
   // Light passing through at each point's centre, from the points painted over it.
   const through = new Float64Array(n).fill(1);
   disks.forEach((d, k) => {
-    const cx = Math.floor(d.x / cell);
-    const cy = Math.floor(d.y / cell);
+    const [cx, cy] = cellOf(d.x, d.y);
     for (let gy = cy - 1; gy <= cy + 1; gy++) {
       for (let gx = cx - 1; gx <= cx + 1; gx++) {
-        const list = grid.get(keyOf(gx, gy));
+        const list = grid.get(gx * rows + gy);
         if (!list) continue;
         for (const m of list) {
           if (m <= k) continue;

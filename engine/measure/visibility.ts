@@ -26,6 +26,35 @@ export interface Visibility {
 
 export const MAX_VISIBILITY_CELLS = 1_000_000;
 
+/** The part of segment a→b inside a box (Liang–Barsky), or null when none is. */
+function segmentPart(ax: number, ay: number, bx: number, by: number, box: Box): [number, number, number, number] | null {
+  const dx = bx - ax;
+  const dy = by - ay;
+  let t0 = 0;
+  let t1 = 1;
+  const edges: [number, number][] = [
+    [-dx, ax - box.x],
+    [dx, box.x + box.width - ax],
+    [-dy, ay - box.y],
+    [dy, box.y + box.height - ay],
+  ];
+  for (const [p, q] of edges) {
+    if (p === 0) {
+      if (q < 0) return null;
+      continue;
+    }
+    const r = q / p;
+    if (p < 0) {
+      if (r > t1) return null;
+      if (r > t0) t0 = r;
+    } else {
+      if (r < t0) return null;
+      if (r < t1) t1 = r;
+    }
+  }
+  return [ax + dx * t0, ay + dy * t0, ax + dx * t1, ay + dy * t1];
+}
+
 export function visibilityOf(scene: Scene, maxCells = MAX_VISIBILITY_CELLS): Visibility {
   const n = scene.items.length;
   const fillVis = new Float64Array(n).fill(1);
@@ -109,17 +138,23 @@ export function visibilityOf(scene: Scene, maxCells = MAX_VISIBILITY_CELLS): Vis
    */
   const strokeSamples = (it: ShapeItem, visit: (cell: number, area: number) => void): void => {
     const sw = it.strokeWidth;
-    const k = Math.max(1, Math.ceil(sw / (h / 2)));
+    // Samples across the band: one per half cell, at most as many as the drawing is wide in half cells.
+    const k = Math.min(Math.max(1, Math.ceil(sw / (h / 2))), 2 * (nx + ny));
     const clip = it.clip;
+    // Only the part of a segment near the drawing is sampled: a huge path costs no more than the grid.
+    const reach = { x: x0 - sw, y: y0 - sw, width: W + 2 * sw, height: H + 2 * sw };
     it.polylines.forEach((pl, p) => {
       const m = pl.length / 2;
       const segs = it.closed[p] && m > 2 ? m : m - 1;
       for (let s = 0; s < segs; s++) {
-        const ax = pl[2 * s]!;
-        const ay = pl[2 * s + 1]!;
         const e = s + 1 === m ? 0 : s + 1;
-        const bx = pl[2 * e]!;
-        const by = pl[2 * e + 1]!;
+        const ax0 = pl[2 * s]!;
+        const ay0 = pl[2 * s + 1]!;
+        const len0 = Math.hypot(pl[2 * e]! - ax0, pl[2 * e + 1]! - ay0);
+        if (!(len0 > 0) || !Number.isFinite(len0)) continue;
+        const part = segmentPart(ax0, ay0, pl[2 * e]!, pl[2 * e + 1]!, reach);
+        if (part === null) continue;
+        const [ax, ay, bx, by] = part;
         const len = Math.hypot(bx - ax, by - ay);
         if (len === 0) continue;
         const steps = Math.max(1, Math.ceil(len / (h / 2)));
