@@ -15,12 +15,11 @@ export const overplotting: Rule = {
   rationale: 'Where points pile up, one visible dot may stand for one observation or for hundreds; the picture hides where the data are dense.',
   source: 'Cleveland 1985, The Elements of Graphing Data (overlap and jittering) — from memory; common practice (transparency, binning, jitter)',
   thresholds: {
-    /** Share of points hidden under other points from which the chart is overplotted. */
+    /** Share of points hidden under other points from which the chart is overplotted (common practice, no source: a quarter of the data unseen). */
     maxHiddenShare: 0.25,
     /** Fewest point marks for the check. */
     minPoints: 20,
   },
-  fix: 'Show density: translucent or smaller points, jitter, or bin the points (2-D histogram, hexbin).',
   check({ chart, measures, thresholds }) {
     const o = measures.overplot;
     if (o.points < thresholds.minPoints || o.hiddenShare < thresholds.maxHiddenShare) return [];
@@ -28,7 +27,7 @@ export const overplotting: Rule = {
       {
         message:
           `${pct(o.hiddenShare)} of ${o.points} points are hidden under other points (${pct(o.overlapShare)} overlap another point); ` +
-          'the density of the data cannot be seen.',
+          'the density of the data cannot be seen. Translucent or smaller points, jitter, or binning (2-D histogram, hexbin) would show it.',
         elements: elementsOf(chart, o.items),
         measures: {
           points: o.points,

@@ -18,7 +18,7 @@ export const backgroundFill: Rule = {
   thresholds: {
     /** Least CIELAB distance (ΔE*ab) from the colour behind for a fill to count as visible; 2.3 is one just-noticeable difference. */
     minDeltaE: JND_DELTA_E_AB,
-    /** Least share of the background's area that must be left visible by what is drawn on it. */
+    /** Least share of the background's area that must be left visible by what is drawn on it (common practice, no source). */
     minShown: 0.05,
   },
   fix: 'Remove the background fill so the page shows through (and leave the page white).',

@@ -17,7 +17,7 @@ export const frameBox: Rule = {
   rationale: 'A box on all four sides of the plot repeats the two axes that carry scales; its extra sides are ink that shows no data and boxes the data in.',
   source: 'Tufte 1983, The Visual Display of Quantitative Information, ch. 6 (redesign of the frame: range-frames and erasing non-data-ink)',
   thresholds: {
-    /** Least share of each edge's length the lines must cover for that side to count as drawn. */
+    /** Least share of each edge's length the lines must cover for that side to count as drawn (common practice, no source). */
     minEdgeCover: 0.8,
     /** Largest distance of a line from the edge, CSS px (besides 1% of the plot's size). */
     edgeTolerancePx: 2,

@@ -37,7 +37,7 @@ export const heavyGrid: Rule = {
   rationale: 'Gridlines as dark or as plentiful as the data pull the eye away from it; a grid should be read when wanted and ignored otherwise.',
   source: 'Tufte 1983, The Visual Display of Quantitative Information, ch. 6 ("the grid should usually be muted or completely suppressed"); WCAG 2.2 SC 1.4.11 for the 3:1 level',
   thresholds: {
-    /** Grid ink over data ink from which the grid competes by its amount. */
+    /** Grid ink over data ink from which the grid competes by its amount (common practice, no source: half the data's ink). */
     maxInkRatio: 0.5,
     /** Grid contrast over the data marks' contrast from which the grid competes by its darkness. */
     maxContrastShare: 1,

@@ -14,7 +14,7 @@ export const redundantTicks: Rule = {
   rationale: 'Ticks at the positions of gridlines say the same thing twice; the gridlines already carry the values to the labels.',
   source: 'Tufte 1983, The Visual Display of Quantitative Information, ch. 4 ("erase redundant data-ink") — common practice for non-data ink',
   thresholds: {
-    /** Least number of ticks that repeat gridlines for a finding. */
+    /** Least number of ticks that repeat gridlines for a finding (common practice, no source). */
     minTicks: 2,
     /** Largest distance between tick and gridline, CSS px (besides half the wider stroke). */
     tolerancePx: 1,

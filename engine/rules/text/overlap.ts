@@ -15,7 +15,6 @@ export const textOverlap: Rule = {
     /** Least overlap depth, CSS px, for a pair to count. */
     minDepthPx: 1,
   },
-  fix: 'Move, rotate, thin out or shorten the colliding labels.',
   check({ chart, measures, thresholds }) {
     const pairs = measures.text.collisions.filter((c) => c.depthPx >= thresholds.minDepthPx);
     if (pairs.length === 0) return [];
@@ -26,7 +25,7 @@ export const textOverlap: Rule = {
     const shown = pairs.slice(0, 3).map((p) => `${text(p.a)} and ${text(p.b)}`);
     return [
       {
-        message: `${pairs.length} pair${pairs.length > 1 ? 's' : ''} of labels overlap: ${shown.join('; ')}${pairs.length > 3 ? '; …' : ''}.`,
+        message: `${pairs.length} pair${pairs.length > 1 ? 's' : ''} of labels overlap: ${shown.join('; ')}${pairs.length > 3 ? '; …' : ''}. Move, rotate, thin out or shorten them.`,
         elements: elementsOf(chart, pairs.flatMap((p) => [p.a, p.b])),
         measures: { pairs: pairs.length, maxDepthPx: r4(Math.max(...pairs.map((p) => p.depthPx))) },
       },
