@@ -34,14 +34,7 @@ beforeAll(() => {
  * figure problem). The test fails when one of them starts firing, so the
  * entry gets removed.
  */
-const KNOWN_MISSES: Record<string, { rule: string; why: string }[]> = {
-  'pipe-repairs': [
-    {
-      rule: 'ink.frame-box',
-      why: 'the outward tick marks outside the frame outnumber the bars inside it, so the plot area is taken from the union of marks and ticks (5.5 units larger than the frame on the left and bottom) and the frame no longer lies on its edges',
-    },
-  ],
-};
+const KNOWN_MISSES: Record<string, { rule: string; why: string }[]> = {};
 
 const UPDATE_HINT =
   'If the change is intended (check the diff first), run `npm run demo:update` and commit corpus-demo/expected/.';

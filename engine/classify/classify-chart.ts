@@ -48,7 +48,7 @@ export function classifyChart(scene: Scene): Chart {
   const legendItems = new Set<number>(legend.flatMap((e) => [e.swatch, ...(e.label !== null ? [e.label] : [])]));
   if (legendFound.box !== null) legendItems.add(legendFound.box);
   const pool0 = shapes.filter((s) => !pageSet.has(s.index) && !legendItems.has(s.index));
-  const vectorBar = pie ? null : findVectorColorBar(pool0, texts);
+  const vectorBar = pie ? null : findVectorColorBar(shapes.filter((s) => !pageSet.has(s.index)), texts);
   const barItems = new Set(vectorBar?.items ?? []);
   if (vectorBar) {
     // Tick marks and labels along a colour bar are its scale, not legend entries.
@@ -67,6 +67,11 @@ export function classifyChart(scene: Scene): Chart {
       legend = keep.length >= 2 ? keep : [];
       if (legend.length === 0) legendItems.clear();
     }
+  }
+  // The colour bar's own tick marks sit just beside it.
+  const barReach = vectorBar ? expand(unionAll(vectorBar.items.map((i) => items[i]!.bbox))!, 8) : null;
+  for (const s of pool0) {
+    if (barReach && !barItems.has(s.index) && straightLineOf(s) && s.bbox.x >= barReach.x && right(s.bbox) <= right(barReach) && s.bbox.y >= barReach.y && bottom(s.bbox) <= bottom(barReach)) barItems.add(s.index);
   }
   const plotPool = pool0.filter((s) => !barItems.has(s.index));
   const plotEvidence = pie ? null : findPlotArea(plotPool, scene.viewBox);

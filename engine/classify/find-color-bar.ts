@@ -33,7 +33,7 @@ export function findImageColorBar(images: ImageItem[], plot: Box | null, texts: 
 }
 
 /**
- * A vector colour bar: at least eight filled cells of one size in a single
+ * A vector colour bar: at least five filled cells of one size in a single
  * column (or row), edge to edge, with five or more colours, and no cells of
  * that size beside them (that would be a grid of data, not a key).
  */
@@ -47,7 +47,7 @@ export function findVectorColorBar(shapes: ShapeItem[], texts: TextItem[]): Colo
       groups.set(k, [...(groups.get(k) ?? []), s]);
     }
     for (const g of groups.values()) {
-      if (g.length < 8) continue;
+      if (g.length < 5) continue;
       const size = (s: ShapeItem): string => `${s.bbox.width.toFixed(1)}x${s.bbox.height.toFixed(1)}`;
       const sizes = new Set(g.map(size));
       if (sizes.size > 2) continue;
@@ -64,7 +64,9 @@ export function findVectorColorBar(shapes: ShapeItem[], texts: TextItem[]): Colo
       const y0 = Math.min(...g.map((s) => s.bbox.y));
       const box = { x: x0, y: y0, width: Math.max(...g.map((s) => right(s.bbox))) - x0, height: Math.max(...g.map((s) => bottom(s.bbox))) - y0 };
       const range = labelRange(box, vertical, texts);
-      return { items: g.map((s) => s.index), colors, low: range?.low ?? null, high: range?.high ?? null };
+      // A stroked outline drawn tightly around the strip belongs to it.
+      const frame = shapes.find((s) => s.rect && s.fill.kind === 'none' && s.stroke.kind !== 'none' && Math.abs(s.rect.x - box.x) < 2 && Math.abs(s.rect.y - box.y) < 2 && Math.abs(right(s.rect) - right(box)) < 2 && Math.abs(bottom(s.rect) - bottom(box)) < 2);
+      return { items: [...g.map((s) => s.index), ...(frame ? [frame.index] : [])], colors, low: range?.low ?? null, high: range?.high ?? null };
     }
   }
   return null;

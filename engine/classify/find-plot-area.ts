@@ -16,7 +16,13 @@ export interface PlotAreaEvidence {
 
 export function findPlotArea(shapes: readonly ShapeItem[], viewBox: Box): PlotAreaEvidence | null {
   const full = area(viewBox);
-  const others = (s: ShapeItem): ShapeItem[] => shapes.filter((o) => o !== s);
+  // Short rules (tick marks, often drawn outward across the frame) say nothing about where the data are.
+  const tickLength = 0.03 * Math.min(viewBox.width, viewBox.height);
+  const substantial = shapes.filter((o) => {
+    const l = straightLineOf(o);
+    return !(l && l.length <= tickLength);
+  });
+  const others = (s: ShapeItem): ShapeItem[] => substantial.filter((o) => o !== s);
   const holdsMost = (b: Box, pool: ShapeItem[]): boolean => {
     if (pool.length === 0) return false;
     const eps = 0.5;
@@ -45,7 +51,7 @@ export function findPlotArea(shapes: readonly ShapeItem[], viewBox: Box): PlotAr
   const vs = lines.filter((x) => x.l!.orientation === 'vertical' && x.l!.length > 0.2 * viewBox.height);
   const eps = Math.max(1.5, 0.004 * Math.max(viewBox.width, viewBox.height));
   const box4 = boxFromLines(hs.map((x) => ({ i: x.s.index, ...x.l! })), vs.map((x) => ({ i: x.s.index, ...x.l! })), eps);
-  if (box4 && area(box4.box) > 0.1 * full && holdsMost(box4.box, shapes.filter((s) => !box4.items.includes(s.index)))) {
+  if (box4 && area(box4.box) > 0.1 * full && holdsMost(box4.box, substantial.filter((s) => !box4.items.includes(s.index)))) {
     return { box: box4.box, source: 'frame-lines', items: box4.items };
   }
   // 4. The clip rectangle shared by most shapes.

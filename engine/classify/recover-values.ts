@@ -164,14 +164,25 @@ function barSeries(
   const lo = orientation === 'vertical' ? (plotArea ? bottom(plotArea) : NaN) : plotArea ? plotArea.x : NaN;
   const hi = orientation === 'vertical' ? (plotArea ? plotArea.y : NaN) : plotArea ? right(plotArea) : NaN;
   const zeroVisible = Number.isFinite(zero) && Number.isFinite(lo) && zero >= Math.min(lo, hi) - 1 && zero <= Math.max(lo, hi) + 1;
-  const baseline = zeroVisible ? zero : lo;
+  // Without a visible zero, bars grow from their common edge (the most frequent near edge), which is
+  // usually but not always the plot edge (axis lines with end ticks enlarge the plot box a little).
+  const commonEdge = (): number => {
+    const counts = new Map<number, number>();
+    for (const b of bars) {
+      const r = boxOf(b);
+      for (const e of orientation === 'vertical' ? [bottom(r), r.y] : [r.x, right(r)]) counts.set(Math.round(e * 2) / 2, (counts.get(Math.round(e * 2) / 2) ?? 0) + 1);
+    }
+    const best = [...counts.entries()].sort((a, b) => b[1] - a[1] || Math.abs(a[0] - lo) - Math.abs(b[0] - lo))[0];
+    return best && best[1] >= Math.max(2, 0.5 * bars.length) ? best[0] : lo;
+  };
+  const baseline = zeroVisible ? zero : commonEdge();
 
   const valueOf = (b: Box): { value: number; stackedOn: boolean } => {
     const [near, far] = orientation === 'vertical' ? [bottom(b), b.y] : [b.x, right(b)];
     // Which end touches the baseline (negative bars hang below it).
     const dNear = Math.abs(near - baseline);
     const dFar = Math.abs(far - baseline);
-    const tol = Math.max(1, 0.01 * Math.abs((orientation === 'vertical' ? b.height : b.width)));
+    const tol = Math.max(1.5, 0.01 * Math.abs((orientation === 'vertical' ? b.height : b.width)));
     if (!valueAxis?.fit) return { value: orientation === 'vertical' ? b.height : b.width, stackedOn: false };
     if (Math.min(dNear, dFar) <= tol || !Number.isFinite(baseline)) {
       const end = dNear <= dFar ? far : near;

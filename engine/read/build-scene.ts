@@ -507,6 +507,7 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
       if (path.attributes.transform) m = multiply(m, parseTransform(path.attributes.transform).matrix);
       return { pathData: path.attributes.d ?? '', matrix: m as [number, number, number, number, number, number] };
     });
+    if (!onOneBaseline(glyphs.map((gl) => ({ x: gl.matrix[4], y: gl.matrix[5] })))) return false;
     let run;
     try {
       run = readGlyphRun(glyphs);
@@ -570,6 +571,29 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
     ignore: rootRule,
     warnings,
   };
+}
+
+/**
+ * Glyph origins of one line of text lie on a line and advance monotonically
+ * along it; markers of a scatter plot drawn by reference do not.
+ */
+function onOneBaseline(origins: { x: number; y: number }[]): boolean {
+  if (origins.length <= 1) return true;
+  const a = origins[0]!;
+  const b = origins[origins.length - 1]!;
+  const len = Math.hypot(b.x - a.x, b.y - a.y);
+  if (len === 0) return origins.every((o) => o.x === a.x && o.y === a.y);
+  const ux = (b.x - a.x) / len;
+  const uy = (b.y - a.y) / len;
+  let last = -Infinity;
+  for (const o of origins) {
+    const along = (o.x - a.x) * ux + (o.y - a.y) * uy;
+    const across = Math.abs(-(o.x - a.x) * uy + (o.y - a.y) * ux);
+    if (across > 0.02 * len + 0.5) return false;
+    if (along < last - 0.5) return false;
+    last = along;
+  }
+  return true;
 }
 
 /** Coordinates beyond this (in world units) are treated as broken input: no chart is drawn that far out. */
