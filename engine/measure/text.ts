@@ -61,7 +61,7 @@ export interface NumericColumn {
   items: number[];
   labels: string[];
   alignment: ColumnAlignment;
-  /** Spread (max − min) of right edges, decimal marks and left edges, CSS px. */
+  /** Spread (max − min) of right edges, decimal marks and left edges, CSS px (edges: of the advance boxes or of the glyph ink, whichever lines up better). */
   rightSpreadPx: number;
   decimalSpreadPx: number;
   leftSpreadPx: number;
@@ -315,30 +315,38 @@ function measureColumn(chart: Chart, axis: AxisName, scale: number): NumericColu
   const comma = usesDecimalComma(items.map((it) => it.content));
   const lefts: number[] = [];
   const rights: number[] = [];
+  const inkLefts: number[] = [];
+  const inkRights: number[] = [];
   const decimals: number[] = [];
   const proportional: number[] = [];
   let substituted = false;
   let fsMin = Infinity;
   for (const it of items) {
-    const left = it.x - (it.anchor === 'middle' ? it.width / 2 : it.anchor === 'end' ? it.width : 0);
-    lefts.push(left);
-    rights.push(left + it.width);
-    fsMin = Math.min(fsMin, it.fontSize);
     const font = fontOf(it);
+    // Text read back from glyph outlines: its width is the advance sum of the face (the run's own extent is approximate).
+    const width = it.fromGlyphs ? measureText(it.content, font).width : it.width;
+    const left = it.x - (it.anchor === 'middle' ? width / 2 : it.anchor === 'end' ? width : 0);
+    lefts.push(left);
+    rights.push(left + width);
+    const q = quadBounds(textQuad(it.fromGlyphs ? { ...it, width } : it));
+    inkLefts.push(q.x0);
+    inkRights.push(q.x1);
+    fsMin = Math.min(fsMin, it.fontSize);
     const parts = numberParts(it.content, comma);
     if (parts) {
       const full = measureText(it.content, font).width;
       const prefix = measureText(it.content.slice(0, parts.decimalIndex), font).width;
-      const k = full > 0 ? it.width / full : 1;
+      const k = full > 0 ? width / full : 1;
       decimals.push(left + prefix * k);
     }
     if (!it.tabularNums && !hasTabularDigits(font)) proportional.push(it.index);
     if (it.fontSubstituted) substituted = true;
   }
   const tolerance = Math.max(0.5 / scale, 0.05 * fsMin);
-  const r = spread(rights);
+  // An edge lines up when either the advance boxes or the glyph ink do (some libraries align by ink).
+  const r = Math.min(spread(rights), spread(inkRights));
   const d = decimals.length === items.length ? spread(decimals) : Infinity;
-  const l = spread(lefts);
+  const l = Math.min(spread(lefts), spread(inkLefts));
   const alignment: ColumnAlignment = r <= tolerance ? 'right' : d <= tolerance ? 'decimal' : l <= tolerance ? 'left' : 'ragged';
   return {
     axis,
