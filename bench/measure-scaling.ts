@@ -17,8 +17,8 @@ import type { TextItem } from '../engine/read/scene.js';
 import { median, timeIt } from './timing.js';
 
 /** A deterministic pseudo-random sequence (LCG), so that runs compare. */
-function lcg(seed: number): () => number {
-  let s = seed >>> 0;
+function lcg(start: number): () => number {
+  let s = start >>> 0;
   return () => {
     s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
     return s / 2 ** 32;
