@@ -41,7 +41,10 @@ export function classifyChart(scene: Scene): Chart {
   let legend: LegendEntry[] = legendFound.entries;
 
   // Pie.
-  const pieShapes = shapes.filter((s) => !pageSet.has(s.index) && !legend.some((e) => e.swatch === s.index));
+  // Wedges are never tiny next to the drawing: markers of a scatter plot are not tried as wedges.
+  const minWedge = 0.04 * Math.min(scene.viewBox.width, scene.viewBox.height);
+  const swatches = new Set(legend.map((e) => e.swatch));
+  const pieShapes = shapes.filter((s) => !pageSet.has(s.index) && !swatches.has(s.index) && Math.max(s.bbox.width, s.bbox.height) >= minWedge);
   const pie = detectPie(pieShapes, texts);
 
   // Plot area (not for pies).
