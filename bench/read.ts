@@ -9,7 +9,7 @@ import { analyzeSvg } from '../engine/audit/analyze.js';
 import { makeLargeScatter } from './make-scatter.js';
 import { median, timeIt } from './timing.js';
 
-export function runReadBench(rounds = 7): { reader: number; svgson: number; ratio: number; analyze: number } {
+export function runReadBench(rounds = 15): { reader: number; svgson: number; ratio: number; analyze: number } {
   const svg = makeLargeScatter();
   // Warm both up once.
   parseXml(svg);

@@ -24,7 +24,7 @@ export interface Visibility {
   cell: number;
 }
 
-export const MAX_VISIBILITY_CELLS = 1_000_000;
+export const MAX_VISIBILITY_CELLS = 250_000;
 
 /** The part of segment a→b inside a box (Liang–Barsky), or null when none is. */
 function segmentPart(ax: number, ay: number, bx: number, by: number, box: Box): [number, number, number, number] | null {

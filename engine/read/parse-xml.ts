@@ -60,7 +60,9 @@ export function parseXml(input: string, options: ParseOptions = {}): XmlDocument
   let trackedLineStart = 0;
   // The next newline at or after trackedOffset (n when there is none): long single-line files stay linear.
   let nextNewline = -1;
-  const lineCol = (offset: number): [number, number] => {
+  let lastLine = 1;
+  let lastColumn = 1;
+  const track = (offset: number): void => {
     if (offset < trackedOffset) {
       // Rare (errors pointing backwards): recount from the start.
       trackedOffset = 0;
@@ -79,7 +81,12 @@ export function parseXml(input: string, options: ParseOptions = {}): XmlDocument
       nextNewline = nl === -1 ? n : nl;
     }
     trackedOffset = offset;
-    return [trackedLine, offset - trackedLineStart + 1];
+    lastLine = trackedLine;
+    lastColumn = offset - trackedLineStart + 1;
+  };
+  const lineCol = (offset: number): [number, number] => {
+    track(offset);
+    return [lastLine, lastColumn];
   };
   const fail = (message: string, offset: number): never => {
     const [line, column] = lineCol(Math.min(Math.max(offset, 0), n));
@@ -151,14 +158,18 @@ export function parseXml(input: string, options: ParseOptions = {}): XmlDocument
   };
   let i = 0;
 
+  const isBlank = (start: number, end: number): boolean => {
+    for (let q = start; q < end; q++) if (!isSpace(src.charCodeAt(q))) return false;
+    return true;
+  };
   const pushText = (start: number, end: number, cdata: boolean): void => {
     const parent = stack[stack.length - 1];
-    const raw = src.slice(start, end);
     if (!parent) {
-      if (cdata || raw.trim() !== '') fail('text outside the root element', start);
+      if (cdata || !isBlank(start, end)) fail('text outside the root element', start);
       return;
     }
-    if (!cdata && !TEXT_CONTAINERS.has(parent.name) && raw.trim() === '') return;
+    if (!cdata && !TEXT_CONTAINERS.has(parent.name) && isBlank(start, end)) return;
+    const raw = src.slice(start, end);
     const value = cdata ? raw : decode(raw, start);
     parent.children.push({ type: 'text', value, span: { start, end }, cdata });
   };
@@ -259,14 +270,19 @@ export function parseXml(input: string, options: ParseOptions = {}): XmlDocument
       const valueStart = j + 1;
       const valueEnd = src.indexOf(quote === 34 ? '"' : "'", valueStart);
       if (valueEnd === -1) fail(`unterminated value of attribute ${attrName}`, j);
-      const raw = src.slice(valueStart, valueEnd);
-      if (raw.indexOf('<') !== -1) fail(`'<' in the value of attribute ${attrName}`, valueStart + raw.indexOf('<'));
+      // One pass over the value: '<' is an error, '&' needs decoding (scans stay inside the value).
+      let hasAmp = false;
+      for (let q = valueStart; q < valueEnd; q++) {
+        const ch = src.charCodeAt(q);
+        if (ch === 60) fail(`'<' in the value of attribute ${attrName}`, q);
+        if (ch === 38) hasAmp = true;
+      }
       for (let k = attrIndex; k < offCount; k += 4) {
         if (offsets[k + 1]! - offsets[k]! === attrName.length && src.startsWith(attrName, offsets[k]!)) {
           fail(`duplicate attribute ${attrName}`, attrStart);
         }
       }
-      if (raw.indexOf('&') !== -1) decode(raw, valueStart); // validates references now; decoded again on demand
+      if (hasAmp) decode(src.slice(valueStart, valueEnd), valueStart); // validates references now; decoded again on demand
       attrCount++;
       if (offCount + 4 > offsets.length) {
         const grown = new Int32Array(offsets.length * 2);
@@ -281,9 +297,12 @@ export function parseXml(input: string, options: ParseOptions = {}): XmlDocument
       j = valueEnd + 1;
     }
 
-    const [line, column] = lineCol(lt);
+    track(lt);
+    const line = lastLine;
+    const column = lastColumn;
     const parent = stack[stack.length - 1] ?? null;
     const element = new SourceElement(store, name, parent, line, column, lt, j, attrIndex, attrCount, selfClosing);
+    if (selfClosing) element.children = NO_CHILDREN;
     if (++elementCount > limits.maxElements) fail(`more than ${limits.maxElements} elements`, lt);
     if (parent) parent.children.push(element);
     else if (root) fail('more than one root element', lt);
@@ -330,6 +349,9 @@ export function parseXml(input: string, options: ParseOptions = {}): XmlDocument
     return fail('unterminated DOCTYPE', start);
   }
 }
+
+/** Shared by every self-closing element (frozen: the tree is read-only after parsing). */
+const NO_CHILDREN: XmlNode[] = Object.freeze([]) as unknown as XmlNode[];
 
 interface AttributeStore {
   src: string;
