@@ -18,7 +18,7 @@ import { buildCascade, computeStyle, type Cascade, type ComputedStyle } from './
 import { measureText } from './fonts/measure-text.js';
 import { readGlyphRun } from './fonts/read-glyph-run.js';
 import { NO_PAINT, parseUrlReference, resolvePaint, type PaintContext } from './paint.js';
-import type { Box, ImageItem, Paint, Scene, SceneItem, ShapeItem, SourceRef, TextItem } from './scene.js';
+import type { Box, ImageItem, ItemBase, Paint, Scene, SceneItem, ShapeItem, SourceRef, TextItem } from './scene.js';
 import type { XmlDocument, XmlElement } from './xml-tree.js';
 import { walkElements } from './parse-xml.js';
 
@@ -98,6 +98,19 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
       return c ? { ...c, alpha: c.alpha * s.stopOpacity } : null;
     },
     currentColor: parseColor(style.color),
+  });
+
+  /** The fields every item shares: where it sits in paint order and in the file, and what applies to it. */
+  const baseOf = (el: XmlElement, ctx: Context, matrix: Matrix, bbox: Box): ItemBase => ({
+    index: items.length,
+    element: el,
+    source: sourceOf(el, ctx),
+    matrix,
+    bbox,
+    clip: ctx.clip,
+    filter: ctx.filter,
+    hints: ctx.hints,
+    ignore: ctx.ignore,
   });
 
   const sourceOf = (el: XmlElement, ctx: Context): SourceRef => {
@@ -273,15 +286,7 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
     }
     const item: ShapeItem = {
       kind: 'shape',
-      index: items.length,
-      element: el,
-      source: sourceOf(el, ctx),
-      matrix: ctx.matrix,
-      bbox,
-      clip: ctx.clip,
-      filter: ctx.filter,
-      hints: ctx.hints,
-      ignore: ctx.ignore,
+      ...baseOf(el, ctx, ctx.matrix, bbox),
       tag: el.name,
       segments,
       segmentsInWorld: false,
@@ -346,15 +351,7 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
     }
     items.push({
       kind: 'shape',
-      index: items.length,
-      element: el,
-      source: sourceOf(el, ctx),
-      matrix: m,
-      bbox,
-      clip: ctx.clip,
-      filter: ctx.filter,
-      hints: ctx.hints,
-      ignore: ctx.ignore,
+      ...baseOf(el, ctx, m, bbox),
       tag: 'circle',
       segments: [],
       segmentsInWorld: false,
@@ -421,15 +418,7 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
     }
     const item: TextItem = {
       kind: 'text',
-      index: items.length,
-      element: el,
-      source: sourceOf(el, ctx),
-      matrix: m,
-      bbox,
-      clip: ctx.clip,
-      filter: ctx.filter,
-      hints: ctx.hints,
-      ignore: ctx.ignore,
+      ...baseOf(el, ctx, m, bbox),
       content,
       x: anchorPt.x,
       y: anchorPt.y,
@@ -467,15 +456,7 @@ export function buildScene(doc: XmlDocument, options: SceneOptions = {}): Scene 
     }
     const item: ImageItem = {
       kind: 'image',
-      index: items.length,
-      element: el,
-      source: sourceOf(el, ctx),
-      matrix: ctx.matrix,
-      bbox: boundsOfPoints(pts),
-      clip: ctx.clip,
-      filter: ctx.filter,
-      hints: ctx.hints,
-      ignore: ctx.ignore,
+      ...baseOf(el, ctx, ctx.matrix, boundsOfPoints(pts)),
       href: href.length > 64 && !href.startsWith('data:') ? href.slice(0, 64) : href,
       embedded: href.startsWith('data:'),
       opacity: ctx.opacity,

@@ -41,7 +41,7 @@ export interface Paint {
   stops: GradientStop[] | null;
 }
 
-interface ItemBase {
+export interface ItemBase {
   /** Position in paint order. */
   index: number;
   /** The element that draws this item (for `<use>` instances: the referenced shape). */
