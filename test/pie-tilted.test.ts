@@ -4,67 +4,19 @@ import { fitEllipse } from '../engine/measure/pie/fit-ellipse.js';
 import { measureProjectionDistortion } from '../engine/measure/pie/projection-distortion.js';
 import { rectifierFor } from '../engine/measure/pie/rectify-ellipse.js';
 import { visibleAreas } from '../engine/measure/pie/visible-area.js';
-import { flattenSegments } from '../engine/read/geometry/flatten.js';
-import { parsePath } from '../engine/read/geometry/parse-path.js';
-import { parseXml } from '../engine/read/parse-xml.js';
+import { shapeFromPath } from './support/pie-shapes.js';
 import type { Paint, ShapeItem } from '../engine/read/scene.js';
 
 // ---------------------------------------------------------------------------
 // Scene items from path data (parsed and flattened by the reader's geometry code).
 
-const element = parseXml('<svg xmlns="http://www.w3.org/2000/svg"><path d="M0 0"/></svg>').root;
 
 function rgb(r: number, g: number, b: number): Paint {
   return { kind: 'color', color: { r, g, b, alpha: 1 }, opacity: 1, ref: null, stops: null };
 }
 
-let nextIndex = 0;
 function shape(d: string, fill: Paint): ShapeItem {
-  const { segments } = parsePath(d);
-  const flat = flattenSegments(segments, 0.2);
-  let x0 = Infinity;
-  let y0 = Infinity;
-  let x1 = -Infinity;
-  let y1 = -Infinity;
-  let area = 0;
-  for (const p of flat.polylines) {
-    const n = p.length / 2;
-    let a = 0;
-    for (let i = 0; i < n; i++) {
-      const j = (i + 1) % n;
-      a += p[2 * i]! * p[2 * j + 1]! - p[2 * j]! * p[2 * i + 1]!;
-      x0 = Math.min(x0, p[2 * i]!);
-      x1 = Math.max(x1, p[2 * i]!);
-      y0 = Math.min(y0, p[2 * i + 1]!);
-      y1 = Math.max(y1, p[2 * i + 1]!);
-    }
-    area += a / 2;
-  }
-  return {
-    kind: 'shape',
-    index: nextIndex++,
-    element,
-    source: { id: null, line: 1, column: 1 },
-    matrix: [1, 0, 0, 1, 0, 0],
-    bbox: { x: x0, y: y0, width: x1 - x0, height: y1 - y0 },
-    clip: null,
-    filter: null,
-    hints: [],
-    ignore: [],
-    tag: 'path',
-    segments,
-    segmentsInWorld: true,
-    polylines: flat.polylines,
-    closed: flat.closed,
-    fill,
-    stroke: { kind: 'none', color: null, opacity: 0, ref: null, stops: null },
-    strokeWidth: 0,
-    dashed: false,
-    area: Math.abs(area),
-    length: 0,
-    rect: null,
-    circle: null,
-  };
+  return shapeFromPath(d, { fill });
 }
 
 const BASE: [number, number, number][] = [

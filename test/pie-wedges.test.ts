@@ -1,9 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { detectPie } from '../engine/classify/pie/detect-wedges.js';
 import { measureProjectionDistortion } from '../engine/measure/pie/projection-distortion.js';
-import { flattenSegments } from '../engine/read/geometry/flatten.js';
-import { parsePath } from '../engine/read/geometry/parse-path.js';
 import { parseXml } from '../engine/read/parse-xml.js';
+import { shapeFromPath, takeIndex } from './support/pie-shapes.js';
 import type { Paint, ShapeItem, TextItem } from '../engine/read/scene.js';
 
 // ---------------------------------------------------------------------------
@@ -28,59 +27,14 @@ interface ShapeOpts {
   filter?: string;
 }
 
-let nextIndex = 0;
 function shape(d: string, fill: string | null, opts: ShapeOpts = {}): ShapeItem {
-  const { segments } = parsePath(d);
-  const flat = flattenSegments(segments, 0.2);
-  let x0 = Infinity;
-  let y0 = Infinity;
-  let x1 = -Infinity;
-  let y1 = -Infinity;
-  let area = 0;
-  for (const p of flat.polylines) {
-    let a = 0;
-    const n = p.length / 2;
-    for (let i = 0; i < n; i++) {
-      const j = (i + 1) % n;
-      a += p[2 * i]! * p[2 * j + 1]! - p[2 * j]! * p[2 * i + 1]!;
-      x0 = Math.min(x0, p[2 * i]!);
-      x1 = Math.max(x1, p[2 * i]!);
-      y0 = Math.min(y0, p[2 * i + 1]!);
-      y1 = Math.max(y1, p[2 * i + 1]!);
-    }
-    area += a / 2;
-  }
-  return {
-    kind: 'shape',
-    index: nextIndex++,
-    element,
-    source: { id: null, line: 1, column: 1 },
-    matrix: [1, 0, 0, 1, 0, 0],
-    bbox: { x: x0, y: y0, width: x1 - x0, height: y1 - y0 },
-    clip: null,
-    filter: opts.filter ?? null,
-    hints: [],
-    ignore: [],
-    tag: 'path',
-    segments,
-    segmentsInWorld: true,
-    polylines: flat.polylines,
-    closed: flat.closed,
-    fill: paint(fill, opts.opacity ?? 1),
-    stroke: paint(opts.stroke ?? null),
-    strokeWidth: opts.strokeWidth ?? 0,
-    dashed: false,
-    area: Math.abs(area),
-    length: 0,
-    rect: null,
-    circle: null,
-  };
+  return shapeFromPath(d, { fill: paint(fill, opts.opacity ?? 1), stroke: paint(opts.stroke ?? null), strokeWidth: opts.strokeWidth ?? 0, filter: opts.filter ?? null });
 }
 
 function text(content: string, x: number, y: number, anchor: 'start' | 'middle' | 'end' = 'middle', fontSize = 10): TextItem {
   return {
     kind: 'text',
-    index: nextIndex++,
+    index: takeIndex(),
     element,
     source: { id: null, line: 1, column: 1 },
     matrix: [1, 0, 0, 1, 0, 0],
