@@ -78,6 +78,7 @@ export function visibilityOf(scene: Scene, maxCells = MAX_VISIBILITY_CELLS): Vis
   };
 
   /** Cells of a filled outline (centres inside, non-zero rule), restricted to a clip box. */
+  /** Cells a fill covers, as inclusive runs [first, last] of cell indices along rows (flat pairs). */
   const fillCells = (it: ShapeItem): number[] => {
     const out: number[] = [];
     const b = it.bbox;
@@ -125,7 +126,7 @@ export function visibilityOf(scene: Scene, maxCells = MAX_VISIBILITY_CELLS): Vis
         const c = Math.min(xs[k + 1]!.x, cx1);
         const i0 = Math.max(0, Math.ceil((a - x0) / h - 0.5));
         const i1 = Math.min(nx - 1, Math.ceil((c - x0) / h - 0.5) - 1);
-        for (let i = i0; i <= i1; i++) out.push(r * nx + i);
+        if (i1 >= i0) out.push(r * nx + i0, r * nx + i1);
       }
     }
     return out;
@@ -216,8 +217,13 @@ export function visibilityOf(scene: Scene, maxCells = MAX_VISIBILITY_CELLS): Vis
       cells = fillCells(it);
       if (cells.length > 0) {
         let sum = 0;
-        for (const c of cells) sum += T[c]!;
-        fillVis[idx] = sum / cells.length;
+        let count = 0;
+        for (let k = 0; k < cells.length; k += 2) {
+          const last = cells[k + 1]!;
+          for (let c = cells[k]!; c <= last; c++) sum += T[c]!;
+          count += last - cells[k]! + 1;
+        }
+        fillVis[idx] = sum / count;
       } else {
         const c = cellAt(it.bbox.x + it.bbox.width / 2, it.bbox.y + it.bbox.height / 2);
         fillVis[idx] = c >= 0 ? T[c]! : 1;
@@ -236,7 +242,10 @@ export function visibilityOf(scene: Scene, maxCells = MAX_VISIBILITY_CELLS): Vis
     }
     if (hasFill) {
       const keep = 1 - Math.min(1, it.fill.opacity);
-      for (const c of cells) T[c]! *= keep;
+      for (let k = 0; k < cells.length; k += 2) {
+        const last = cells[k + 1]!;
+        for (let c = cells[k]!; c <= last; c++) T[c]! *= keep;
+      }
     }
     if (hasStroke) {
       const alpha = Math.min(1, it.stroke.opacity) * (it.dashed ? 0.5 : 1);
