@@ -3,7 +3,6 @@
  * `<use>`, resolves paint servers and clip bounds, converts every shape to
  * world-space geometry and measures text with the bundled fonts.
  */
-import { parseColor } from '../color/parse-color.js';
 import type { Rgba } from '../color/types.js';
 import { applyToPoint, identity, isFiniteMatrix, multiply, translation, type Matrix } from './geometry/matrix.js';
 import { parseTransform } from './geometry/parse-transform.js';
@@ -17,7 +16,7 @@ import { flattenSegments } from './geometry/flatten.js';
 import { buildCascade, computeStyle, type Cascade, type ComputedStyle } from './style/index.js';
 import { measureText } from './fonts/measure-text.js';
 import { readGlyphRun } from './fonts/read-glyph-run.js';
-import { NO_PAINT, parseUrlReference, resolvePaint, type PaintContext } from './paint.js';
+import { NO_PAINT, parseColor, parseUrlReference, resolvePaint, type PaintContext } from './paint.js';
 import type { Box, ImageItem, ItemBase, Paint, Scene, SceneItem, ShapeItem, SourceRef, TextItem } from './scene.js';
 import type { XmlDocument, XmlElement } from './xml-tree.js';
 import { walkElements } from './parse-xml.js';

@@ -3,12 +3,24 @@
  * (gradients, patterns) referenced by url(#id) with a representative colour.
  */
 import { converter } from 'culori';
-import { parseColor } from '../color/parse-color.js';
+import { parseColor as parseColorUncached } from '../color/parse-color.js';
 import type { Rgba } from '../color/types.js';
 import type { GradientStop, Paint } from './scene.js';
 import type { XmlElement } from './xml-tree.js';
 
 const toLab = converter('lab65');
+
+// Charts repeat a handful of colour strings thousands of times: parse each once.
+const colorCache = new Map<string, Rgba | null>();
+export function parseColor(css: string): Rgba | null {
+  let c = colorCache.get(css);
+  if (c === undefined) {
+    c = parseColorUncached(css);
+    if (colorCache.size > 4096) colorCache.clear();
+    colorCache.set(css, c);
+  }
+  return c ? { ...c } : null;
+}
 const toRgb = converter('rgb');
 
 export const NO_PAINT: Paint = Object.freeze({ kind: 'none', color: null, opacity: 0, ref: null, stops: null }) as Paint;
