@@ -10,6 +10,7 @@
  * start at zero has lengths proportional to values and a lie factor of 1.
  */
 import type { Axis, Chart } from '../classify/chart.js';
+import { intersection } from '../classify/boxes.js';
 import { forwardAxis, invertAxis } from '../classify/find-axes.js';
 import type { Box, ShapeItem } from '../read/scene.js';
 import { lieFactor } from './lie-factor.js';
@@ -57,16 +58,6 @@ interface Span {
   item: number;
 }
 
-function clipped(b: Box, clip: Box | null): Box | null {
-  if (!clip) return b;
-  const x0 = Math.max(b.x, clip.x);
-  const y0 = Math.max(b.y, clip.y);
-  const x1 = Math.min(b.x + b.width, clip.x + clip.width);
-  const y1 = Math.min(b.y + b.height, clip.y + clip.height);
-  if (x1 < x0 || y1 < y0) return null;
-  return { x: x0, y: y0, width: x1 - x0, height: y1 - y0 };
-}
-
 function valueAxisOf(chart: Chart): Axis | null {
   if (chart.kind === 'area') return chart.orientation === 'horizontal' ? chart.axes.x : chart.axes.y;
   if (chart.orientation === 'vertical') return chart.axes.y;
@@ -101,7 +92,7 @@ export function measureBaseline(chart: Chart): BaselineMeasure | null {
   const tol = Math.max(0.5 / pxPerUnit, 0.002 * (Number.isFinite(axisSpan) ? axisSpan : 0));
   const spans: Span[] = [];
   for (const s of shapes) {
-    const b = clipped(s.bbox, s.clip);
+    const b = s.clip ? intersection(s.bbox, s.clip) : s.bbox;
     if (!b) continue;
     // Strokes widen the box by half the stroke width on each side.
     const half = s.stroke.kind !== 'none' && s.stroke.opacity > 0 ? s.strokeWidth / 2 : 0;

@@ -4,6 +4,7 @@
  * sit on), for SC 1.4.11 Non-text Contrast. A mark outlined by a stroke that
  * itself has enough contrast counts by its outline.
  */
+import { intersection } from '../classify/boxes.js';
 import type { Chart } from '../classify/chart.js';
 import { compositeOver } from '../color/composite.js';
 import { formatHex } from '../color/format-hex.js';
@@ -29,15 +30,7 @@ export interface MarkContrast {
 const SAMPLE = 7;
 
 function clippedBox(it: ShapeItem): Box {
-  const b = it.bbox;
-  const c = it.clip;
-  if (!c) return b;
-  const x0 = Math.max(b.x, c.x);
-  const y0 = Math.max(b.y, c.y);
-  const x1 = Math.min(b.x + b.width, c.x + c.width);
-  const y1 = Math.min(b.y + b.height, c.y + c.height);
-  if (x1 < x0 || y1 < y0) return b;
-  return { x: x0, y: y0, width: x1 - x0, height: y1 - y0 };
+  return (it.clip && intersection(it.bbox, it.clip)) || it.bbox;
 }
 
 function medianBy<T>(xs: T[], key: (t: T) => number): T {
